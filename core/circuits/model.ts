@@ -1,0 +1,128 @@
+// The shape every circuit model file exports. One model per file; the registry lists them.
+import type { Dim } from '../types';
+
+/** A numeric parameter of a circuit, in SI units. */
+export interface QuantityParam {
+  kind: 'quantity';
+  key: string;
+  /** Short label for hovers and completion, in the trade's words ("upper threshold VT+"). */
+  label: string;
+  dim: Dim;
+  /** Default when the key is absent: a constant, or derived from the other resolved values. Absent = required. */
+  default?: number | ((values: Readonly<Record<string, number>>) => number);
+  /** Human text of the default for docs and completion ("supply", "2/3 supply"). */
+  defaultText?: string;
+  /** Hard limits; outside them the model is not computed (an error naming the key). */
+  min?: number;
+  max?: number;
+  /** Whether `?` may be solved for this key (R, C, and timer registers). */
+  solvable?: boolean;
+  /** Integer-valued (registers, stages, oversampling). */
+  integer?: boolean;
+  description: string;
+}
+
+/** A word-valued parameter (`mode: up-down`, `diode: yes`). */
+export interface ChoiceParam {
+  kind: 'choice';
+  key: string;
+  label: string;
+  options: readonly string[];
+  default: string;
+  description: string;
+}
+
+/** A set of allowed integers (`prescalers: 1, 8, 64` or `1..65536`). */
+export interface ListParam {
+  kind: 'list';
+  key: string;
+  label: string;
+  defaultText?: string;
+  description: string;
+}
+
+export type ParamSpec = QuantityParam | ChoiceParam | ListParam;
+
+/** Allowed integers: an explicit list, or an inclusive range. */
+export type IntegerSet = { kind: 'list'; values: number[] } | { kind: 'range'; min: number; max: number };
+
+/** Resolved inputs of a model. */
+export interface ModelInput {
+  values: Readonly<Record<string, number>>;
+  choices: Readonly<Record<string, string>>;
+  lists: Readonly<Record<string, IntegerSet>>;
+}
+
+export interface ResultSpec {
+  key: string;
+  label: string;
+  dim: Dim;
+  /** Fractions shown as percent (duty, error). */
+  percent?: boolean;
+}
+
+/** A physics problem with the inputs, naming the offending key. */
+export interface ModelIssue {
+  key: string;
+  message: string;
+  severity?: 'error' | 'warning' | 'info';
+}
+
+/** One line of the hover's working: the formula, the numbers substituted, and its published source. */
+export interface WorkingLine {
+  formula: string;
+  substituted: string;
+  source: string;
+}
+
+/** A trace for the waveform panel and SVG, sampled densely enough to draw. */
+export interface Trace {
+  name: string;
+  dim: Dim;
+  points: Array<[number, number]>;
+}
+
+export interface Waveform {
+  traces: Trace[];
+  /** Horizontal reference lines (thresholds, control voltage) on the first trace's axis. */
+  levels: Array<{ label: string; value: number }>;
+  /** Time span drawn, seconds. */
+  duration: number;
+}
+
+/** Timer register search (`prescaler: ?`, `reload: ?`). */
+export interface RegisterSearch {
+  /** Keys searched, from the block's `?`s. */
+  unknowns: string[];
+  /** The result the target constrains and its value ("frequency", 1000). */
+  measure: string;
+  target: number;
+}
+
+export interface RegisterSearchResult {
+  values: Record<string, number>;
+  /** Relative error of the achieved measure against the target (0 when exact). */
+  error: number;
+}
+
+export interface CircuitModel {
+  id: string;
+  title: string;
+  /** One sentence for the README and completion. */
+  summary: string;
+  assumptions: readonly string[];
+  params: readonly ParamSpec[];
+  results: readonly ResultSpec[];
+  /** Result keys shown on the code lens, in order. */
+  headline: readonly string[];
+  /** Physics checks on resolved inputs (after defaults). An error here means compute() is not called. */
+  validate(input: ModelInput): ModelIssue[];
+  /** Results in SI units; every value finite. */
+  compute(input: ModelInput): Record<string, number>;
+  working(input: ModelInput, results: Readonly<Record<string, number>>): WorkingLine[];
+  waveform?(input: ModelInput, cycles: number): Waveform;
+  /** Cautions in words for the hover (hazardous voltage, safety-related timing). */
+  cautions?(input: ModelInput): string[];
+  /** For timers: search the `?` registers for a target. */
+  search?(input: ModelInput, search: RegisterSearch): RegisterSearchResult | { error: string };
+}
