@@ -79,3 +79,64 @@ export interface RawBlock {
   /** Problems of the block's own shape: unterminated fence, a line that is not `key: value`, a repeated key. */
   findings: Finding[];
 }
+
+/** A result with its spread, when the block gives tolerances. */
+export interface SpreadRange {
+  min: number;
+  max: number;
+  /** Monte Carlo percentiles when `samples:` is given. */
+  p1?: number;
+  p99?: number;
+  /** Each toleranced input's share of the worst-case width (fractions summing to about 1). */
+  shares?: Record<string, number>;
+}
+
+export interface SolvedPart {
+  /** Exact value that meets the target (R, C); absent for timer registers. */
+  exact?: number;
+  /** The value used from now on: the standard part, or the register value. */
+  value: number;
+  series?: string;
+  /** Relative error of the recomputed measure against the target. */
+  error?: number;
+}
+
+/** A firmware identifier a block used, with where it came from. */
+export interface ResolvedIdentifier {
+  name: string;
+  value: number;
+  /** Where it is defined: document uri and 1-based line. */
+  uri: string;
+  line: number;
+}
+
+/** Everything the engine says about one block: the CLI's JSON and the editor's lens, hover and diagnostics. */
+export interface BlockAnalysis {
+  /** Name as written, or `circuit@line`. */
+  name: string;
+  /** 1-based line of the block's header. */
+  line: number;
+  circuit?: string;
+  /** The raw block as scanned (spans for the editor). */
+  block: RawBlock;
+  /** Every value that resolved, SI base units. */
+  params: Record<string, number>;
+  /** Word-valued parameters (`mode`, `diode`, `series`). */
+  choices: Record<string, string>;
+  /** Results that could be computed; never NaN or infinite. */
+  values: Record<string, number>;
+  spread?: Record<string, SpreadRange>;
+  solved?: Record<string, SolvedPart>;
+  identifiers: ResolvedIdentifier[];
+  /** Findings with spans into the block's document (or `uri` when elsewhere). */
+  findings: Finding[];
+}
+
+export interface DocumentAnalysis {
+  uri: string;
+  blocks: BlockAnalysis[];
+  /** Findings not tied to one block (file too large, include problems). */
+  findings: Finding[];
+  /** Files read to resolve constants (headers), so an editor can refresh dependants. */
+  dependencies: string[];
+}
