@@ -1,0 +1,133 @@
+// Finds the comments of C/C++ source in one linear pass, stepping over string, character and raw string
+// literals (ISO C17 §6.4.5, C++20 [lex.string]) so `"/*"` in code never opens a comment.
+
+export interface CComment {
+  kind: 'line' | 'block';
+  /** Offset of the opening `/`. */
+  start: number;
+  /** Offset just past the comment: the line end for a line comment, past the closing star-slash of a block comment. */
+  end: number;
+  /** For block comments, offset of the closing star-slash (text.length when unterminated). */
+  closeAt: number;
+  terminated: boolean;
+}
+
+function isIdentStart(ch: number): boolean {
+  return (ch >= 65 && ch <= 90) || (ch >= 97 && ch <= 122) || ch === 95 || ch === 36 || ch > 127;
+}
+
+function isIdentChar(ch: number): boolean {
+  return isIdentStart(ch) || (ch >= 48 && ch <= 57);
+}
+
+function isDigit(ch: number): boolean {
+  return ch >= 48 && ch <= 57;
+}
+
+function isLineBreak(ch: number): boolean {
+  return ch === 10 || ch === 13;
+}
+
+/** Past a backslash and what it escapes; a backslash before CRLF splices the line (C17 §5.1.1.2). */
+function skipEscape(text: string, i: number): number {
+  if (text.charCodeAt(i + 1) === 13 && text.charCodeAt(i + 2) === 10) return i + 3;
+  return i + 2;
+}
+
+/** End of a `//` comment: the line end, unless a backslash splices the next line on. */
+function lineCommentEnd(text: string, from: number): number {
+  let i = from;
+  while (i < text.length) {
+    const ch = text.charCodeAt(i);
+    if (ch === 92 && isLineBreak(text.charCodeAt(i + 1))) {
+      i = skipEscape(text, i);
+      continue;
+    }
+    if (isLineBreak(ch)) return i;
+    i++;
+  }
+  return i;
+}
+
+/** Past a quoted literal; an unescaped line break ends an unterminated one (compilers reject it too). */
+function quotedEnd(text: string, from: number, quote: number): number {
+  let i = from + 1;
+  while (i < text.length) {
+    const ch = text.charCodeAt(i);
+    if (ch === 92) {
+      i = skipEscape(text, i);
+      continue;
+    }
+    if (ch === quote) return i + 1;
+    if (isLineBreak(ch)) return i;
+    i++;
+  }
+  return i;
+}
+
+/** Past a C++ raw string `R"delim( … )delim"` whose quote is at `quoteAt`, or -1 if not one. */
+function rawStringEnd(text: string, quoteAt: number): number {
+  let i = quoteAt + 1;
+  // [lex.string]: the delimiter is at most 16 characters, none of space ( ) \ or control characters.
+  while (i < text.length && i - quoteAt - 1 <= 16) {
+    const ch = text.charCodeAt(i);
+    if (ch === 40) {
+      const closing = ')' + text.slice(quoteAt + 1, i) + '"';
+      const found = text.indexOf(closing, i + 1);
+      return found < 0 ? text.length : found + closing.length;
+    }
+    if (ch <= 32 || ch === 41 || ch === 92 || ch === 127) return -1;
+    i++;
+  }
+  return -1;
+}
+
+const RAW_PREFIXES = new Set(['R', 'u8R', 'uR', 'UR', 'LR']);
+
+/** Past a preprocessing number (C17 §6.4.8), including C++14 digit separators `1'000'000`. */
+function numberEnd(text: string, from: number): number {
+  let i = from + 1;
+  while (i < text.length) {
+    const ch = text.charCodeAt(i);
+    const prev = text.charCodeAt(i - 1);
+    if ((ch === 43 || ch === 45) && (prev === 101 || prev === 69 || prev === 112 || prev === 80)) i++;
+    else if (ch === 39 && isIdentChar(text.charCodeAt(i + 1))) i += 2;
+    else if (isIdentChar(ch) || ch === 46) i++;
+    else break;
+  }
+  return i;
+}
+
+export function findComments(text: string): CComment[] {
+  const comments: CComment[] = [];
+  let i = 0;
+  while (i < text.length) {
+    const ch = text.charCodeAt(i);
+    const next = text.charCodeAt(i + 1);
+    if (ch === 47 && next === 47) {
+      const end = lineCommentEnd(text, i + 2);
+      comments.push({ kind: 'line', start: i, end, closeAt: end, terminated: true });
+      i = end;
+    } else if (ch === 47 && next === 42) {
+      const close = text.indexOf('*/', i + 2);
+      const closeAt = close < 0 ? text.length : close;
+      const end = close < 0 ? text.length : close + 2;
+      comments.push({ kind: 'block', start: i, end, closeAt, terminated: close >= 0 });
+      i = end;
+    } else if (ch === 34 || ch === 39) {
+      i = quotedEnd(text, i, ch);
+    } else if (isIdentStart(ch)) {
+      const start = i;
+      while (i < text.length && isIdentChar(text.charCodeAt(i))) i++;
+      if (text.charCodeAt(i) === 34 && RAW_PREFIXES.has(text.slice(start, i))) {
+        const end = rawStringEnd(text, i);
+        i = end < 0 ? quotedEnd(text, i, 34) : end;
+      }
+    } else if (isDigit(ch) || (ch === 46 && isDigit(next))) {
+      i = numberEnd(text, i);
+    } else {
+      i++;
+    }
+  }
+  return comments;
+}

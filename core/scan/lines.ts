@@ -1,0 +1,63 @@
+// Line bookkeeping shared by the scanners and by anything that turns offsets into line/column.
+// A line ends at "\r\n", "\n" or a lone "\r", as CommonMark 0.31.2 §2.1 and VS Code both count them.
+
+/** Offsets at which each line starts; always begins with 0. */
+export function lineStarts(text: string): number[] {
+  const starts = [0];
+  for (let i = 0; i < text.length; i++) {
+    const ch = text.charCodeAt(i);
+    if (ch === 10) {
+      starts.push(i + 1);
+    } else if (ch === 13) {
+      if (text.charCodeAt(i + 1) === 10) i++;
+      starts.push(i + 1);
+    }
+  }
+  return starts;
+}
+
+/** 0-based line holding `offset` (binary search over `lineStarts`). */
+export function lineOf(starts: number[], offset: number): number {
+  let low = 0;
+  let high = starts.length - 1;
+  while (low < high) {
+    const mid = (low + high + 1) >> 1;
+    if (starts[mid] <= offset) low = mid;
+    else high = mid - 1;
+  }
+  return low;
+}
+
+/** One physical line: `start` to `end` excludes the line break; `next` is where the following line starts. */
+export interface LineRange {
+  start: number;
+  end: number;
+  next: number;
+}
+
+/** The line starting at `start`; `next` equals text.length past the last line. */
+export function lineAt(text: string, start: number): LineRange {
+  let i = start;
+  while (i < text.length) {
+    const ch = text.charCodeAt(i);
+    if (ch === 10) return { start, end: i, next: i + 1 };
+    if (ch === 13) return { start, end: i, next: text.charCodeAt(i + 1) === 10 ? i + 2 : i + 1 };
+    i++;
+  }
+  return { start, end: i, next: i };
+}
+
+/** Blank for trimming: space, tab, form feed, vertical tab, no-break space, BOM. */
+export function isBlank(ch: number): boolean {
+  return ch === 32 || ch === 9 || ch === 12 || ch === 11 || ch === 0xa0 || ch === 0xfeff;
+}
+
+export function skipBlanks(text: string, from: number, to: number): number {
+  while (from < to && isBlank(text.charCodeAt(from))) from++;
+  return from;
+}
+
+export function trimEnd(text: string, from: number, to: number): number {
+  while (to > from && isBlank(text.charCodeAt(to - 1))) to--;
+  return to;
+}
