@@ -1,0 +1,145 @@
+// One block from scanned text to every number the engine can say about it.
+import type { BlockAnalysis, Finding, RawBlock, SolvedPart } from '../types';
+import type { CircuitModel } from '../circuits/model';
+import { circuitById, circuits } from '../circuits/registry';
+import { compileValue, parseValue } from '../value';
+import { Code } from '../codes';
+import type { AnalyzeOptions, DataModelName, IdentifierSource } from './context';
+import { didYouMean } from './keys';
+import { buildPlan, evaluateParams, tolerancedKeys, type Plan } from './plan';
+import { finiteOnly, limitIssues, modelInput } from './measure';
+import { parseClaims } from './claims';
+import { monteCarlo, worstCase } from './spread';
+import { solveUnknowns } from './unknowns';
+import { checkClaims } from './mismatch';
+
+export interface BlockContext {
+  uri: string;
+  /** 1-based line of the header. */
+  line: number;
+  options: AnalyzeOptions;
+  /** Identifier source for a data model and the block's `from:` (already resolved by the document). */
+  source: IdentifierSource;
+}
+
+const dataModels: readonly DataModelName[] = ['ilp32', 'lp64', 'ip16'];
+
+export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysis {
+  const findings: Finding[] = [...raw.findings];
+  const entries = new Map(raw.entries.map((e) => [e.key, e]));
+  const circuitEntry = entries.get('circuit');
+  const circuitId = circuitEntry?.valueText.trim().toLowerCase();
+  const analysis: BlockAnalysis = {
+    name: raw.name ?? `${circuitId || 'timing'}@${context.line}`,
+    line: context.line,
+    circuit: circuitId || undefined,
+    block: raw,
+    params: {},
+    choices: {},
+    values: {},
+    identifiers: [],
+    findings,
+  };
+  if (!circuitEntry || !circuitId) {
+    findings.push({ severity: 'error', code: Code.circuitMissing, message: `block needs \`circuit:\` (one of ${circuits.map((c) => c.id).join(', ')})`, span: raw.headerSpan });
+    return analysis;
+  }
+  const model = circuitById(circuitId);
+  if (!model) {
+    findings.push({
+      severity: 'error',
+      code: Code.circuitUnknown,
+      message: `unknown circuit \`${circuitId}\`${didYouMean(circuitId, circuits.map((c) => c.id)) || ` (known: ${circuits.map((c) => c.id).join(', ')})`}`,
+      span: circuitEntry.valueSpan,
+    });
+    return analysis;
+  }
+
+  let dataModel = context.options.dataModel;
+  const dataModelEntry = entries.get('data-model');
+  if (dataModelEntry) {
+    const word = dataModelEntry.valueText.trim().toLowerCase() as DataModelName;
+    if (dataModels.includes(word)) dataModel = word;
+    else findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`data-model\` takes ${dataModels.join(', ')}, not \`${dataModelEntry.valueText}\``, span: dataModelEntry.valueSpan });
+  }
+
+  const plan = buildPlan(raw, model, context.source, dataModel);
+  findings.push(...plan.findings);
+  analysis.identifiers = plan.identifiers;
+  analysis.choices = { ...plan.choices };
+  const blocked = () => findings.some((f) => f.severity === 'error');
+
+  const overrides: Record<string, number> = {};
+  if (plan.unknowns.length && !blocked()) {
+    const solved = solveUnknowns(plan, entries, context, overrides, findings);
+    if (solved) analysis.solved = solved;
+  } else if (plan.unknowns.length) {
+    for (const u of plan.unknowns) findings.push({ severity: 'info', code: Code.solveFailed, message: `\`${u.key}: ?\` is solved once the errors above are fixed`, span: u.span });
+  }
+
+  const params = evaluateParams(plan, undefined, overrides);
+  analysis.params = finiteOnly(params);
+  if (blocked() || plan.unknowns.some((u) => !(u.key in overrides))) return analysis;
+
+  const input = modelInput(plan, params);
+  const issues = [...limitIssues(model, params), ...safeValidate(model, input)];
+  for (const issue of issues) {
+    const entry = entries.get(issue.key);
+    findings.push({ severity: issue.severity ?? 'error', code: Code.physics, message: issue.message, span: entry ? entry.valueSpan : raw.headerSpan });
+  }
+  if (blocked()) return analysis;
+  try {
+    analysis.values = finiteOnly(model.compute(input));
+  } catch (err) {
+    findings.push({ severity: 'error', code: Code.physics, message: `${model.id} could not be computed from these values`, span: raw.headerSpan });
+    return analysis;
+  }
+
+  const keys = tolerancedKeys(plan);
+  if (keys.length) {
+    const spread = worstCase(plan, keys, overrides);
+    const samples = integerMeta(entries.get('samples'), findings, 1, 1_000_000);
+    if (samples) monteCarlo(plan, keys, samples, integerMeta(entries.get('seed'), findings, 0, 2 ** 32 - 1) ?? 1, spread, overrides);
+    analysis.spread = spread;
+  }
+
+  const expectEntry = entries.get('expect');
+  if (expectEntry) {
+    const claims = parseClaims(expectEntry, model, context.options.defaultTolerance, findings);
+    checkClaims(analysis, plan, claims, overrides, context, findings);
+  }
+
+  for (const caution of safeCautions(model, input)) {
+    findings.push({ severity: 'info', code: Code.caution, message: caution, span: raw.headerSpan });
+  }
+  return analysis;
+}
+
+function safeValidate(model: CircuitModel, input: ReturnType<typeof modelInput>) {
+  try {
+    return model.validate(input);
+  } catch {
+    return [{ key: 'circuit', message: `${model.id} could not check these values` }];
+  }
+}
+
+function safeCautions(model: CircuitModel, input: ReturnType<typeof modelInput>): string[] {
+  try {
+    return model.cautions?.(input) ?? [];
+  } catch {
+    return [];
+  }
+}
+
+function integerMeta(entry: { valueText: string; valueSpan: { start: number; end: number }; key: string } | undefined, findings: Finding[], min: number, max: number): number | undefined {
+  if (!entry) return undefined;
+  const parsed = parseValue(entry.valueText, entry.valueSpan.start);
+  const value = parsed.expr && !parsed.findings.length ? compileValue(parsed.expr)({}) : NaN;
+  if (!Number.isInteger(value) || value < min || value > max) {
+    findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`${entry.key}\` takes a whole number from ${min} to ${max}`, span: entry.valueSpan });
+    return undefined;
+  }
+  return value;
+}
+
+export type { Plan, SolvedPart };

@@ -1,0 +1,61 @@
+// The one entry point the CLI and the editor share: a document's text in, every block's analysis out.
+import type { DocumentAnalysis, Finding, TextDocumentLike } from '../types';
+import { Code } from '../codes';
+import { hostOf, scanDocument } from '../scan';
+import { lineOf, lineStarts } from '../scan/lines';
+import { analyzeBlock } from './block';
+import { noIdentifiers, type AnalyzeOptions, type IdentifierSource } from './context';
+import { cFileSource, fromFileSource } from './sources';
+
+export { analyzeBlock } from './block';
+export * from './context';
+
+export function analyzeDocument(doc: TextDocumentLike, options: AnalyzeOptions): DocumentAnalysis {
+  const analysis: DocumentAnalysis = { uri: doc.uri, blocks: [], findings: [], dependencies: [] };
+  if (doc.text.length > options.maxFileBytes) {
+    analysis.findings.push({
+      severity: 'info',
+      code: Code.fileTooLarge,
+      message: `file is larger than tickmark.files.maxSizeKB (${Math.round(options.maxFileBytes / 1024)} KB); its timing blocks are not read`,
+      span: { start: 0, end: 0 },
+    });
+    return analysis;
+  }
+  const blocks = scanDocument(doc);
+  if (blocks.length === 0) return analysis;
+  const starts = lineStarts(doc.text);
+  const isC = hostOf(doc) === 'c';
+  const own = isC ? cFileSource(doc.uri, doc.text, options) : undefined;
+  const fromSources = new Map<string, { source?: IdentifierSource; problem?: string }>();
+  const used = new Set<IdentifierSource>();
+
+  for (const raw of blocks) {
+    let source: IdentifierSource = own ?? noIdentifiers;
+    const extra: Finding[] = [];
+    const from = raw.entries.find((e) => e.key === 'from');
+    if (from) {
+      if (isC) extra.push({ severity: 'warning', code: Code.keyUnknown, message: '`from:` is for notes; a block in C reads the constants of its own file', span: from.keySpan });
+      else {
+        const spelled = from.valueText.trim();
+        let entry = fromSources.get(spelled);
+        if (!entry) fromSources.set(spelled, (entry = fromFileSource(doc.uri, spelled, options)));
+        if (entry.source) source = entry.source;
+        else extra.push({ severity: 'error', code: Code.cInclude, message: entry.problem ?? `cannot read \`${spelled}\``, span: from.valueSpan });
+      }
+    }
+    used.add(source);
+    const result = analyzeBlock(raw, { uri: doc.uri, line: lineOf(starts, raw.headerSpan.start) + 1, options, source });
+    result.findings.unshift(...extra);
+    analysis.blocks.push(result);
+  }
+  const dependencies = new Set<string>();
+  for (const source of used) {
+    for (const file of source.dependencies()) if (file !== doc.uri) dependencies.add(file);
+    for (const finding of source.findings()) {
+      // Problems inside a header are reported where the header is included from, once.
+      if (source === own) analysis.findings.push({ ...finding, uri: finding.uri === doc.uri ? undefined : finding.uri });
+    }
+  }
+  analysis.dependencies = [...dependencies];
+  return analysis;
+}

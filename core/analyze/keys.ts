@@ -1,0 +1,47 @@
+// Keys a block may carry besides its circuit's parameters, and the helpers to suggest a near miss.
+
+/** Block keys that steer the analysis rather than describe the circuit. */
+export const metaKeys = ['circuit', 'expect', 'target', 'series', 'samples', 'seed', 'from', 'data-model'] as const;
+
+export type MetaKey = (typeof metaKeys)[number];
+
+export function isMetaKey(key: string): key is MetaKey {
+  return (metaKeys as readonly string[]).includes(key);
+}
+
+/** Levenshtein distance, bounded: returns limit + 1 once it is certain to exceed limit. */
+export function editDistance(a: string, b: string, limit = 3): number {
+  if (Math.abs(a.length - b.length) > limit) return limit + 1;
+  let previous = Array.from({ length: b.length + 1 }, (_, i) => i);
+  for (let i = 1; i <= a.length; i++) {
+    const current = [i];
+    let rowMin = i;
+    for (let j = 1; j <= b.length; j++) {
+      const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+      current[j] = Math.min(previous[j] + 1, current[j - 1] + 1, previous[j - 1] + cost);
+      rowMin = Math.min(rowMin, current[j]);
+    }
+    if (rowMin > limit) return limit + 1;
+    previous = current;
+  }
+  return previous[b.length];
+}
+
+/** The closest candidate within two edits, for "did you mean" hints. */
+export function closest(word: string, candidates: readonly string[]): string | undefined {
+  let best: string | undefined;
+  let bestDistance = 3;
+  for (const candidate of candidates) {
+    const distance = editDistance(word.toLowerCase(), candidate.toLowerCase(), 2);
+    if (distance < bestDistance) {
+      best = candidate;
+      bestDistance = distance;
+    }
+  }
+  return best;
+}
+
+export function didYouMean(word: string, candidates: readonly string[]): string {
+  const near = closest(word, candidates);
+  return near ? ` — did you mean \`${near}\`?` : '';
+}

@@ -1,0 +1,64 @@
+// Running a plan through its model, and choosing which result a claimed or targeted unit speaks of.
+import type { Dim } from '../types';
+import type { CircuitModel, ModelInput, ModelIssue, QuantityParam } from '../circuits/model';
+import { evaluateParams, type Offsets, type Plan } from './plan';
+
+export function modelInput(plan: Plan, values: Readonly<Record<string, number>>): ModelInput {
+  return { values, choices: plan.choices, lists: plan.lists, name: plan.name };
+}
+
+/** Limits from the parameter table (positive parts, integer registers), before the model's own physics. */
+export function limitIssues(model: CircuitModel, values: Readonly<Record<string, number>>): ModelIssue[] {
+  const issues: ModelIssue[] = [];
+  for (const spec of model.params) {
+    if (spec.kind !== 'quantity' || !(spec.key in values)) continue;
+    const value = values[spec.key];
+    if (!Number.isFinite(value)) issues.push({ key: spec.key, message: `\`${spec.key}\` does not evaluate to a finite number` });
+    else if (spec.min !== undefined && value < spec.min) issues.push({ key: spec.key, message: `\`${spec.key}\` must be at least ${spec.min}${spec.dim ? ' ' + spec.dim : ''} (${spec.label})` });
+    else if (spec.max !== undefined && value > spec.max) issues.push({ key: spec.key, message: `\`${spec.key}\` must be at most ${spec.max}${spec.dim ? ' ' + spec.dim : ''} (${spec.label})` });
+    else if (spec.integer && !Number.isInteger(value)) issues.push({ key: spec.key, message: `\`${spec.key}\` must be a whole number, not ${value}` });
+  }
+  return issues;
+}
+
+/** Results of one evaluation, or undefined when the inputs break the model (never throws). */
+export function computeAt(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> | undefined {
+  const values = evaluateParams(plan, offsets, overrides);
+  try {
+    const input = modelInput(plan, values);
+    if (limitIssues(plan.model, values).length || plan.model.validate(input).some((i) => (i.severity ?? 'error') === 'error')) return undefined;
+    return finiteOnly(plan.model.compute(input));
+  } catch {
+    return undefined;
+  }
+}
+
+export function finiteOnly(results: Record<string, number>): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [key, value] of Object.entries(results)) if (typeof value === 'number' && Number.isFinite(value)) out[key] = value;
+  return out;
+}
+
+const preference = ['frequency', 'period', 'width', 'time', 'duty', 'baud', 'load', 'counts'];
+
+/** The result a claimed unit speaks of: `Hz` frequency, `s` period (or width, time), `%` duty, `baud` rate. */
+export function measureFor(model: CircuitModel, dim: Dim): string | undefined {
+  const candidates = model.results.filter((r) => {
+    if (dim === '%') return r.percent === true;
+    if (dim === 'baud') return r.key === 'baud';
+    if (dim === 'Hz' && r.key === 'baud') return false;
+    return r.dim === dim;
+  });
+  candidates.sort((a, b) => rank(a.key) - rank(b.key));
+  return candidates[0]?.key;
+}
+
+function rank(key: string): number {
+  const index = preference.indexOf(key);
+  return index < 0 ? preference.length : index;
+}
+
+export function quantitySpec(model: CircuitModel, key: string): QuantityParam | undefined {
+  const spec = model.params.find((p) => p.key === key);
+  return spec && spec.kind === 'quantity' ? spec : undefined;
+}

@@ -1,0 +1,68 @@
+// Firmware constants as identifier sources: the C file a block sits in, or the file a note's `from:` names.
+import * as path from 'node:path';
+import type { Finding } from '../types';
+import { Code } from '../codes';
+import { buildConstantTable, toNumber, type ConstantTable, type DataModel } from '../c';
+import type { AnalyzeOptions, DataModelName, IdentifierLookup, IdentifierSource } from './context';
+
+/** Constants of one C file, built once per data model on first use. */
+export function cFileSource(filePath: string, text: string, options: AnalyzeOptions): IdentifierSource {
+  const tables = new Map<DataModelName, ConstantTable>();
+  const roots = options.workspaceRoots.length ? options.workspaceRoots : [path.dirname(filePath)];
+  const table = (dataModel: DataModelName): ConstantTable => {
+    let found = tables.get(dataModel);
+    if (!found) {
+      found = buildConstantTable(filePath, text, {
+        dataModel: dataModel as DataModel,
+        includeDirs: options.includeDirs,
+        workspaceRoots: roots,
+        read: options.read,
+        realpath: options.realpath,
+        maxFileBytes: options.maxFileBytes,
+      });
+      tables.set(dataModel, found);
+    }
+    return found;
+  };
+  return {
+    lookup(name, dataModel): IdentifierLookup {
+      const resolution = table(dataModel).lookup(name);
+      if (!resolution.ok) return { ok: false, message: resolution.message, code: resolution.code || Code.identifierUnknown };
+      const value = toNumber(resolution.value);
+      if (!Number.isFinite(value)) return { ok: false, code: Code.cSyntax, message: `\`${name}\` is not a finite number` };
+      const d = resolution.definition;
+      return {
+        ok: true,
+        value,
+        identifier: { name, value, uri: d.uri, line: d.line },
+        literal: d.literal ? { uri: d.uri, start: d.literal.span.start, end: d.literal.span.end, text: d.literal.text } : undefined,
+      };
+    },
+    dependencies: () => [...new Set([...tables.values()].flatMap((t) => t.dependencies))],
+    findings: () => {
+      const first = tables.values().next().value as ConstantTable | undefined;
+      return (first?.findings ?? []).map((f) => ({ ...f }));
+    },
+  };
+}
+
+/** The source a Markdown block's `from:` names, relative to the note and inside the workspace. */
+export function fromFileSource(notePath: string, spelled: string, options: AnalyzeOptions): { source?: IdentifierSource; problem?: string } {
+  const target = path.resolve(path.dirname(notePath), spelled);
+  const roots = options.workspaceRoots.length ? options.workspaceRoots : [path.dirname(notePath)];
+  const real = options.realpath ? options.realpath(target) ?? target : target;
+  if (!roots.some((root) => isInside(real, root))) return { problem: `\`${spelled}\` is outside the workspace; Tickmark reads firmware only inside it` };
+  const text = options.read(target);
+  if (text === undefined) return { problem: `cannot read \`${spelled}\` (looked for ${target})` };
+  if (text.length > options.maxFileBytes) return { problem: `\`${spelled}\` is larger than the size limit (${Math.round(options.maxFileBytes / 1024)} KB)` };
+  return { source: cFileSource(target, text, options) };
+}
+
+export function isInside(file: string, root: string): boolean {
+  const relative = path.relative(path.resolve(root), path.resolve(file));
+  return relative === '' || (!relative.startsWith('..') && !path.isAbsolute(relative));
+}
+
+export function sourceFindings(source: IdentifierSource, uri: string): Finding[] {
+  return source.findings().filter((f) => !f.uri || f.uri === uri);
+}

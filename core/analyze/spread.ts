@@ -1,0 +1,121 @@
+// Spread of every result from the block's tolerances: worst case over the corners and an interior grid (for
+// results that are not monotonic in an input), each input's share of the width, and optional Monte Carlo.
+import type { SpreadRange } from '../types';
+import { computeAt } from './measure';
+import type { Plan } from './plan';
+
+/** Inputs beyond this many get corners only; 3^6 = 729 grid points is still cheap. */
+const gridLimit = 6;
+/** Beyond this many toleranced inputs the corners (2^n) are sampled by Monte Carlo instead. */
+const cornerLimit = 12;
+
+function* levels(count: number, steps: readonly number[]): Generator<number[]> {
+  const index = new Array(count).fill(0);
+  while (true) {
+    yield index.map((i) => steps[i]);
+    let k = 0;
+    while (k < count && ++index[k] === steps.length) index[k++] = 0;
+    if (k === count) return;
+  }
+}
+
+function widen(ranges: Record<string, SpreadRange>, results: Record<string, number>): void {
+  for (const [key, value] of Object.entries(results)) {
+    const range = ranges[key];
+    if (!range) ranges[key] = { min: value, max: value };
+    else {
+      if (value < range.min) range.min = value;
+      if (value > range.max) range.max = value;
+    }
+  }
+}
+
+export function worstCase(plan: Plan, keys: string[], overrides?: Record<string, number>): Record<string, SpreadRange> {
+  const ranges: Record<string, SpreadRange> = {};
+  if (keys.length === 0) return ranges;
+  const steps = keys.length <= gridLimit ? [-1, 0, 1] : [-1, 1];
+  if (keys.length <= cornerLimit) {
+    for (const point of levels(keys.length, steps)) {
+      const offsets: Record<string, number> = {};
+      keys.forEach((key, i) => (offsets[key] = point[i]));
+      const results = computeAt(plan, offsets, overrides);
+      if (results) widen(ranges, results);
+    }
+  } else {
+    const random = mulberry32(1);
+    for (let n = 0; n < 4096; n++) {
+      const offsets: Record<string, number> = {};
+      for (const key of keys) offsets[key] = random() < 0.5 ? -1 : 1;
+      const results = computeAt(plan, offsets, overrides);
+      if (results) widen(ranges, results);
+    }
+  }
+  addShares(plan, keys, ranges, overrides);
+  return ranges;
+}
+
+/** Each input's one-at-a-time swing over the sum of swings: which part is worth buying tighter. */
+function addShares(plan: Plan, keys: string[], ranges: Record<string, SpreadRange>, overrides?: Record<string, number>): void {
+  const swings: Record<string, Record<string, number>> = {};
+  for (const key of keys) {
+    const low = computeAt(plan, { [key]: -1 }, overrides);
+    const high = computeAt(plan, { [key]: 1 }, overrides);
+    if (!low || !high) continue;
+    for (const result of Object.keys(ranges)) {
+      if (!(result in low) || !(result in high)) continue;
+      (swings[result] ??= {})[key] = Math.abs(high[result] - low[result]);
+    }
+  }
+  for (const [result, byKey] of Object.entries(swings)) {
+    const total = Object.values(byKey).reduce((a, b) => a + b, 0);
+    if (total <= 0) continue;
+    const shares: Record<string, number> = {};
+    for (const [key, swing] of Object.entries(byKey)) shares[key] = swing / total;
+    ranges[result].shares = shares;
+  }
+}
+
+/**
+ * Monte Carlo with every toleranced input uniform over its band (a part's tolerance is a bound, not a sigma:
+ * uniform is the cautious reading, common practice for tolerance stacks without distribution data).
+ */
+export function monteCarlo(plan: Plan, keys: string[], samples: number, seed: number, ranges: Record<string, SpreadRange>, overrides?: Record<string, number>): void {
+  const random = mulberry32(seed);
+  const collected: Record<string, Float64Array> = {};
+  const counts: Record<string, number> = {};
+  const offsets: Record<string, number> = {};
+  for (let n = 0; n < samples; n++) {
+    for (const key of keys) offsets[key] = random() * 2 - 1;
+    const results = computeAt(plan, offsets, overrides);
+    if (!results) continue;
+    for (const [key, value] of Object.entries(results)) {
+      const store = (collected[key] ??= new Float64Array(samples));
+      store[(counts[key] = (counts[key] ?? 0) + 1) - 1] = value;
+    }
+  }
+  for (const [key, store] of Object.entries(collected)) {
+    const sorted = store.subarray(0, counts[key]).sort();
+    if (!ranges[key] || sorted.length === 0) continue;
+    ranges[key].p1 = percentile(sorted, 0.01);
+    ranges[key].p99 = percentile(sorted, 0.99);
+  }
+}
+
+function percentile(sorted: Float64Array, p: number): number {
+  const position = (sorted.length - 1) * p;
+  const low = Math.floor(position);
+  const high = Math.min(low + 1, sorted.length - 1);
+  return sorted[low] + (sorted[high] - sorted[low]) * (position - low);
+}
+
+/** A small seeded generator so a block's Monte Carlo figures are the same on every run (mulberry32). */
+export function mulberry32(seed: number): () => number {
+  let state = seed >>> 0;
+  return () => {
+    state = (state + 0x6d2b79f5) >>> 0;
+    let t = state;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}

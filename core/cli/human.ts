@@ -1,0 +1,47 @@
+// The report a person reads in a terminal or a CI log: `file:line: severity: message`, a summary per block.
+import type { Finding } from '../types';
+import { headline } from '../present/values';
+import { displayPath } from './files';
+import { locate } from './locate';
+import type { CheckedFile } from './run';
+
+export interface Paint {
+  severity(severity: Finding['severity'], text: string): string;
+  dim(text: string): string;
+  bold(text: string): string;
+}
+
+export const noPaint: Paint = { severity: (_s, t) => t, dim: (t) => t, bold: (t) => t };
+
+export const ansiPaint: Paint = {
+  severity: (s, t) => `\x1b[${s === 'error' ? '31' : s === 'warning' ? '33' : '36'}m${t}\x1b[0m`,
+  dim: (t) => `\x1b[2m${t}\x1b[0m`,
+  bold: (t) => `\x1b[1m${t}\x1b[0m`,
+};
+
+export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): string {
+  const lines: string[] = [];
+  let blocks = 0;
+  const counts = { error: 0, warning: 0, info: 0 };
+  const line = (finding: Finding, file: CheckedFile) => {
+    const where = locate(finding, file);
+    counts[finding.severity]++;
+    return `${displayPath(where.file, cwd)}:${where.line}: ${paint.severity(finding.severity, finding.severity)}: ${finding.message}`;
+  };
+  for (const file of checked) {
+    for (const finding of file.analysis.findings) lines.push(line(finding, file));
+    for (const block of file.analysis.blocks) {
+      blocks++;
+      const worst = block.findings.some((f) => f.severity === 'error') ? 'error' : block.findings.some((f) => f.severity === 'warning') ? 'warning' : 'ok';
+      const mark = worst === 'ok' ? paint.dim('ok') : paint.severity(worst, worst === 'error' ? 'failed' : 'check');
+      lines.push(`${file.display}:${block.line}: ${paint.bold(block.name)} (${block.circuit ?? 'no circuit'}) ${mark} — ${headline(block)}`);
+      for (const finding of block.findings) lines.push(line(finding, file));
+    }
+  }
+  const files = checked.filter((f) => f.analysis.blocks.length).length;
+  lines.push(
+    `${blocks} block${blocks === 1 ? '' : 's'} in ${files} file${files === 1 ? '' : 's'}: ` +
+      `${counts.error} error${counts.error === 1 ? '' : 's'}, ${counts.warning} warning${counts.warning === 1 ? '' : 's'}, ${counts.info} note${counts.info === 1 ? '' : 's'}`,
+  );
+  return lines.join('\n') + '\n';
+}

@@ -1,0 +1,46 @@
+// `--json`: the shape DESIGN.md promises, SI base units, 1-based lines.
+import type { BlockAnalysis, Finding } from '../types';
+import { locate } from './locate';
+import type { CheckedFile } from './run';
+
+interface JsonDiagnostic {
+  severity: Finding['severity'];
+  code: string;
+  line: number;
+  column: number;
+  endLine: number;
+  endColumn: number;
+  message: string;
+  file?: string;
+}
+
+function diagnostic(finding: Finding, file: CheckedFile): JsonDiagnostic {
+  const where = locate(finding, file);
+  const out: JsonDiagnostic = { severity: finding.severity, code: finding.code, line: where.line, column: where.column, endLine: where.endLine, endColumn: where.endColumn, message: finding.message };
+  if (where.file !== file.file) out.file = where.file;
+  return out;
+}
+
+function block(analysis: BlockAnalysis, file: CheckedFile) {
+  const out: Record<string, unknown> = {
+    name: analysis.name,
+    line: analysis.line,
+    circuit: analysis.circuit ?? null,
+    params: { ...analysis.params, ...analysis.choices },
+    values: analysis.values,
+  };
+  if (analysis.spread) out.spread = analysis.spread;
+  if (analysis.solved) out.solved = analysis.solved;
+  if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => ({ ...i }));
+  out.diagnostics = analysis.findings.map((f) => diagnostic(f, file));
+  return out;
+}
+
+export function jsonReport(checked: CheckedFile[]): string {
+  const files = checked.map((file) => ({
+    path: file.display,
+    blocks: file.analysis.blocks.map((b) => block(b, file)),
+    diagnostics: file.analysis.findings.map((f) => diagnostic(f, file)),
+  }));
+  return JSON.stringify({ files }, null, 2) + '\n';
+}

@@ -1,0 +1,192 @@
+// `tickmark check` and `tickmark wave`: the engine from a terminal or CI. Exit 0 clean, 1 findings, 2 usage.
+import * as fs from 'node:fs';
+import * as path from 'node:path';
+import { parseArgs, last, type ParsedArgs } from './args';
+import { collectFiles, displayPath } from './files';
+import { checkFiles, cliOptions, rootsFor } from './run';
+import { ansiPaint, humanReport, noPaint } from './human';
+import { jsonReport } from './json';
+import { sarifReport } from './sarif';
+import { waveformFor, defaultCycles, maxCycles } from '../present/waveform';
+import { renderWaveformSvg } from '../wave/svg';
+import type { DataModelName } from '../analyze';
+
+export const version = '0.1.0';
+
+export interface Io {
+  out: (text: string) => void;
+  err: (text: string) => void;
+  cwd: string;
+  color: boolean;
+}
+
+const usage = `usage: tickmark <command> [options]
+
+commands:
+  check   compute every timing block in notes and firmware, report claims that do not hold
+  wave    write one block's waveform as SVG
+
+run \`tickmark <command> --help\` for its options
+`;
+
+const checkHelp = `usage: tickmark check [--json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] PATH...
+
+Scans Markdown notes and C/C++ files (folders are walked) for timing blocks, computes each,
+and prints \`file:line: severity: message\` per finding with a one-line summary per block.
+
+  --json            print one JSON object (SI base units, 1-based lines)
+  --sarif           print SARIF 2.1.0 for code-scanning tools
+  --tolerance P     default tolerance of \`expect:\` in percent (default 1)
+  --include DIR     extra folder for quoted #include (repeatable)
+  --data-model M    integer widths for C constants: ilp32 (default), lp64, ip16
+  --series S        default series for solved parts: E3 … E192 or none (default E24)
+
+exit status: 0 nothing wrong, 1 a block has a warning or error, 2 usage error or unreadable path
+`;
+
+const waveHelp = `usage: tickmark wave PATH --block NAME [--cycles N] [--out FILE.svg]
+
+Writes the waveform of block NAME in file PATH as SVG: capacitor voltage and output
+from startup over N cycles (default ${defaultCycles}, at most ${maxCycles}), thresholds labelled.
+Without --out the SVG goes to standard output.
+
+exit status: 0 written, 1 the block has errors or no waveform, 2 usage error or unreadable path
+`;
+
+const dataModels: DataModelName[] = ['ilp32', 'lp64', 'ip16'];
+
+export function main(argv: string[], io: Io): number {
+  const [command, ...rest] = argv;
+  if (!command || command === '--help' || command === '-h' || command === 'help') {
+    (command ? io.out : io.err)(usage);
+    return command ? 0 : 2;
+  }
+  if (command === '--version') {
+    io.out(version + '\n');
+    return 0;
+  }
+  if (command === 'check') return check(rest, io);
+  if (command === 'wave') return wave(rest, io);
+  io.err(`tickmark: unknown command \`${command}\`\n\n${usage}`);
+  return 2;
+}
+
+function optionsFrom(args: ParsedArgs, io: Io, paths: string[]): ReturnType<typeof cliOptions> | string {
+  const tolerance = last(args, 'tolerance');
+  const percent = tolerance === undefined ? 1 : Number(tolerance.replace(/%$/, ''));
+  if (!Number.isFinite(percent) || percent < 0 || percent > 100) return `--tolerance takes a percentage from 0 to 100, not ${tolerance}`;
+  const dataModel = (last(args, 'data-model') ?? 'ilp32') as DataModelName;
+  if (!dataModels.includes(dataModel)) return `--data-model takes ${dataModels.join(', ')}, not ${dataModel}`;
+  const includeDirs = (args.flags.get('include') ?? []).map((d) => path.resolve(io.cwd, d));
+  for (const dir of includeDirs) if (!isFolder(dir)) return `--include ${dir}: no such folder`;
+  const series = last(args, 'series') ?? 'E24';
+  if (!/^(E(3|6|12|24|48|96|192)|none)$/i.test(series)) return `--series takes E3, E6, E12, E24, E48, E96, E192 or none, not ${series}`;
+  return cliOptions({
+    defaultTolerance: percent / 100,
+    dataModel,
+    includeDirs,
+    defaultSeries: series.toUpperCase() === 'NONE' ? 'none' : series.toUpperCase(),
+    workspaceRoots: rootsFor(paths, includeDirs, io.cwd),
+  });
+}
+
+function isFolder(dir: string): boolean {
+  try {
+    return fs.statSync(dir).isDirectory();
+  } catch {
+    return false;
+  }
+}
+
+function check(argv: string[], io: Io): number {
+  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, tolerance: { value: true }, include: { value: true }, 'data-model': { value: true }, series: { value: true }, help: { value: false }, h: { value: false } });
+  if (args.flags.has('help') || args.flags.has('h')) {
+    io.out(checkHelp);
+    return 0;
+  }
+  const problems = [...args.problems];
+  if (args.flags.has('json') && args.flags.has('sarif')) problems.push('--json and --sarif cannot be combined');
+  if (args.positional.length === 0) problems.push('no PATH given');
+  const paths = args.positional.map((p) => path.resolve(io.cwd, p));
+  const options = optionsFrom(args, io, paths);
+  if (typeof options === 'string') problems.push(options);
+  if (problems.length || typeof options === 'string') {
+    io.err(problems.map((p) => `tickmark check: ${p}\n`).join('') + '\n' + checkHelp);
+    return 2;
+  }
+  const { files, problems: unreadable } = collectFiles(paths);
+  if (unreadable.length) {
+    io.err(unreadable.map((p) => `tickmark check: ${p}\n`).join(''));
+    return 2;
+  }
+  const checked = checkFiles(files, options, (file) => displayPath(file, io.cwd));
+  if (args.flags.has('json')) io.out(jsonReport(checked));
+  else if (args.flags.has('sarif')) io.out(sarifReport(checked, io.cwd, version));
+  else io.out(humanReport(checked, io.cwd, io.color ? ansiPaint : noPaint));
+  const failing = checked.some((file) => file.analysis.blocks.some((b) => b.findings.some((f) => f.severity !== 'info')));
+  return failing ? 1 : 0;
+}
+
+function wave(argv: string[], io: Io): number {
+  const args = parseArgs(argv, { block: { value: true }, cycles: { value: true }, out: { value: true }, help: { value: false }, h: { value: false } });
+  if (args.flags.has('help') || args.flags.has('h')) {
+    io.out(waveHelp);
+    return 0;
+  }
+  const problems = [...args.problems];
+  const blockName = last(args, 'block');
+  if (args.positional.length !== 1) problems.push('give exactly one PATH');
+  if (!blockName) problems.push('--block NAME is required');
+  const cyclesText = last(args, 'cycles');
+  const cycles = cyclesText === undefined ? defaultCycles : Number(cyclesText);
+  if (!Number.isInteger(cycles) || cycles < 1 || cycles > maxCycles) problems.push(`--cycles takes a whole number from 1 to ${maxCycles}`);
+  if (problems.length) {
+    io.err(problems.map((p) => `tickmark wave: ${p}\n`).join('') + '\n' + waveHelp);
+    return 2;
+  }
+  const file = path.resolve(io.cwd, args.positional[0]);
+  const options = optionsFrom(args, io, [path.dirname(file)]);
+  const { files, problems: unreadable } = collectFiles([file]);
+  if (unreadable.length || typeof options === 'string') {
+    io.err(`tickmark wave: ${unreadable[0] ?? options}\n`);
+    return 2;
+  }
+  const [checked] = checkFiles(files, options, (f) => displayPath(f, io.cwd));
+  const blocks = checked?.analysis.blocks ?? [];
+  const block = blocks.find((b) => b.name === blockName);
+  if (!block) {
+    const names = blocks.map((b) => b.name);
+    io.err(`tickmark wave: no block \`${blockName}\` in ${args.positional[0]}${names.length ? ` (blocks: ${names.join(', ')})` : ' (it has no timing blocks)'}\n`);
+    return 2;
+  }
+  const waveform = waveformFor(block, cycles);
+  if (!waveform) {
+    const error = block.findings.find((f) => f.severity === 'error');
+    io.err(`tickmark wave: ${block.name} has ${error ? `an error: ${error.message}` : `no waveform (${block.circuit})`}\n`);
+    return 1;
+  }
+  const svg = renderWaveformSvg(waveform, { title: `${block.name} (${block.circuit})` });
+  const out = last(args, 'out');
+  if (!out) {
+    io.out(svg);
+    return 0;
+  }
+  try {
+    fs.writeFileSync(path.resolve(io.cwd, out), svg);
+  } catch (err) {
+    io.err(`tickmark wave: cannot write ${out}: ${(err as Error).message}\n`);
+    return 2;
+  }
+  io.out(`wrote ${out}\n`);
+  return 0;
+}
+
+if (require.main === module) {
+  const code = main(process.argv.slice(2), {
+    out: (t) => process.stdout.write(t),
+    err: (t) => process.stderr.write(t),
+    cwd: process.cwd(),
+    color: Boolean(process.stdout.isTTY) && !process.env.NO_COLOR,
+  });
+  process.exitCode = code;
+}

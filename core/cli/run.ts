@@ -1,0 +1,36 @@
+// A check over files: each read once, analysed with the same engine the editor uses.
+import * as path from 'node:path';
+import { analyzeDocument, defaultAnalyzeOptions, type AnalyzeOptions } from '../analyze';
+import type { DocumentAnalysis } from '../types';
+import { lineStarts } from '../scan/lines';
+import { languageOf, readText, realPath } from './files';
+
+export interface CheckedFile {
+  file: string;
+  display: string;
+  text: string;
+  starts: number[];
+  analysis: DocumentAnalysis;
+}
+
+export function cliOptions(overrides: Partial<AnalyzeOptions>): AnalyzeOptions {
+  const base: AnalyzeOptions = { ...defaultAnalyzeOptions, read: () => undefined, ...overrides };
+  const maxFileBytes = base.maxFileBytes;
+  return { ...base, read: overrides.read ?? ((file) => readText(file, maxFileBytes)), realpath: overrides.realpath ?? realPath };
+}
+
+export function checkFiles(files: string[], options: AnalyzeOptions, display: (file: string) => string): CheckedFile[] {
+  const checked: CheckedFile[] = [];
+  for (const file of files) {
+    const text = readText(file, Number.MAX_SAFE_INTEGER) ?? '';
+    const analysis = analyzeDocument({ uri: file, text, languageId: languageOf(file) }, options);
+    if (analysis.blocks.length === 0 && analysis.findings.length === 0) continue;
+    checked.push({ file, display: display(file), text, starts: lineStarts(text), analysis });
+  }
+  return checked;
+}
+
+/** Workspace roots for a CLI run: the working folder and every folder named on the command line. */
+export function rootsFor(paths: string[], includeDirs: string[], cwd: string): string[] {
+  return [...new Set([cwd, ...paths.map((p) => path.resolve(p)), ...includeDirs.map((d) => path.resolve(d))])];
+}

@@ -1,0 +1,54 @@
+// How results read: one formatter for lens, hover, CLI and preview so a value looks the same everywhere.
+import type { BlockAnalysis } from '../types';
+import type { CircuitModel } from '../circuits/model';
+import { circuitById } from '../circuits/registry';
+import { formatPercent, formatQuantity } from '../format';
+
+export function formatResult(model: CircuitModel, key: string, value: number): string {
+  const spec = model.results.find((r) => r.key === key);
+  if (spec?.percent) return formatPercent(value);
+  if (key === 'baud') return `${formatQuantity(value, '')} baud`;
+  return formatQuantity(value, spec?.dim ?? '');
+}
+
+export function resultLabel(model: CircuitModel, key: string): string {
+  return model.results.find((r) => r.key === key)?.label ?? key;
+}
+
+/** The code lens line: headline numbers, the worst-case band of the first, or the block's first error. */
+export function headline(analysis: BlockAnalysis): string {
+  const error = analysis.findings.find((f) => f.severity === 'error');
+  if (error) return `⚠ ${error.message}`;
+  const model = analysis.circuit ? circuitById(analysis.circuit) : undefined;
+  if (!model) return analysis.name;
+  const parts: string[] = [];
+  for (const key of model.headline) {
+    const value = analysis.values[key];
+    if (value === undefined) continue;
+    const text = formatResult(model, key, value);
+    parts.push(model.results.find((r) => r.key === key)?.percent ? `${text} ${key}` : text);
+  }
+  const first = model.headline.find((k) => analysis.spread?.[k]);
+  const band = first ? analysis.spread![first] : undefined;
+  if (first && band && band.max > band.min) {
+    parts.push(`${bandText(model, first, band.min, band.max)} worst case`);
+  }
+  for (const [key, part] of Object.entries(analysis.solved ?? {})) {
+    const spec = model.params.find((p) => p.key === key);
+    const dim = spec && spec.kind === 'quantity' ? spec.dim : '';
+    parts.push(`${key} = ${formatQuantity(part.value, dim)}${part.series ? ` (${part.series})` : ''}`);
+  }
+  const warnings = analysis.findings.filter((f) => f.severity === 'warning').length;
+  if (warnings) parts.push(`${warnings} warning${warnings > 1 ? 's' : ''}`);
+  return parts.join(' · ') || analysis.name;
+}
+
+/** `172–209 Hz`: one unit for both ends when they share it. */
+export function bandText(model: CircuitModel, key: string, min: number, max: number): string {
+  const low = formatResult(model, key, min);
+  const high = formatResult(model, key, max);
+  const lowParts = low.split(' ');
+  const highParts = high.split(' ');
+  if (lowParts.length === 2 && highParts.length === 2 && lowParts[1] === highParts[1]) return `${lowParts[0]}–${high}`;
+  return `${low} – ${high}`;
+}
