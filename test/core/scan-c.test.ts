@@ -115,6 +115,15 @@ describe('scanC', () => {
     assert.equal(text.slice(block.findings[0].span.start, block.findings[0].span.end), 'R');
   });
 
+  it('finds every block in a multi-megabyte source file', () => {
+    const chunk = 'static const char *m = "/* not */"; /* @timing t\n * r: 1k\n */\nint f(void) { return \'/\'; }\n';
+    const text = chunk.repeat(30000);
+    assert.ok(text.length > 2_000_000);
+    const blocks = scanC(text);
+    assert.equal(blocks.length, 30000);
+    assert.equal(blocks[29999].entries[0].valueText, '1k');
+  });
+
   it('needs @timing as a whole word at the start of the comment text', () => {
     assert.deepEqual(scanC('// see @timing a\n// @timings b\n'), []);
   });
