@@ -25,6 +25,8 @@ export const Code = {
   solveFailed: 'solve-failed',
   solveInexact: 'solve-inexact',
   solved: 'solved',
+  /** A part value off the block's standard series; the fix sets the log-nearest series value. */
+  seriesSnap: 'series-snap',
   // firmware constants
   cSyntax: 'c-syntax',
   cUnknown: 'c-unknown',

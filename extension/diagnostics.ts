@@ -1,0 +1,76 @@
+// Problems list: re-checks a document shortly after typing stops, and the documents that include a
+// header when the header changes. A result for an outdated version is dropped, never shown.
+import * as vscode from 'vscode';
+import type { AnalysisStore } from './analysisStore';
+import { isTimingDocument } from './documents';
+import { placedFindings, toDiagnostic } from './findings';
+import type { Logger } from './logger';
+
+export interface DiagnosticsDeps {
+  store: AnalysisStore;
+  logger: Logger;
+  /** Quiet time after the last keystroke before re-checking (ms). */
+  debounceMs?: number;
+}
+
+export function registerDiagnostics({ store, logger, debounceMs = 250 }: DiagnosticsDeps): vscode.Disposable {
+  const collection = vscode.languages.createDiagnosticCollection('tickmark');
+  const pending = new Map<string, NodeJS.Timeout>();
+
+  const publish = (doc: vscode.TextDocument): void => {
+    if (doc.isClosed || !isTimingDocument(doc)) return;
+    const analysis = store.analysisOf(doc);
+    collection.set(doc.uri, placedFindings(analysis).map((placed) => toDiagnostic(doc, placed)));
+  };
+
+  const schedule = (doc: vscode.TextDocument): void => {
+    const key = doc.uri.toString();
+    clearTimeout(pending.get(key));
+    const version = doc.version;
+    pending.set(
+      key,
+      setTimeout(() => {
+        pending.delete(key);
+        if (doc.version !== version) return;
+        try {
+          publish(doc);
+        } catch (cause) {
+          logger.error(`diagnostics for ${key} failed`, cause);
+        }
+      }, debounceMs),
+    );
+  };
+
+  const refreshDependants = (doc: vscode.TextDocument): void => {
+    const dependants = store.dependantsOf(doc.uri);
+    if (dependants.length === 0) return;
+    store.invalidate(dependants);
+    for (const other of vscode.workspace.textDocuments) {
+      if (dependants.includes(other.uri.toString())) schedule(other);
+    }
+  };
+
+  const publishAll = (): void => vscode.workspace.textDocuments.forEach(publish);
+
+  publishAll();
+  return vscode.Disposable.from(
+    collection,
+    vscode.workspace.onDidOpenTextDocument(publish),
+    vscode.workspace.onDidChangeTextDocument((event) => {
+      if (event.contentChanges.length === 0) return;
+      if (isTimingDocument(event.document)) schedule(event.document);
+      refreshDependants(event.document);
+    }),
+    vscode.workspace.onDidSaveTextDocument(refreshDependants),
+    vscode.workspace.onDidCloseTextDocument((doc) => {
+      clearTimeout(pending.get(doc.uri.toString()));
+      pending.delete(doc.uri.toString());
+      collection.delete(doc.uri);
+      store.forget(doc.uri);
+    }),
+    store.onDidInvalidate(() => {
+      for (const doc of vscode.workspace.textDocuments) if (isTimingDocument(doc)) schedule(doc);
+    }),
+    { dispose: () => pending.forEach((timer) => clearTimeout(timer)) },
+  );
+}

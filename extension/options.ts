@@ -1,0 +1,42 @@
+// Builds the core's options for one document: settings, workspace roots, and a reader that serves
+// unsaved editor buffers before the disk, so a header edit counts before it is saved.
+import * as fs from 'node:fs';
+import * as path from 'node:path';
+import * as vscode from 'vscode';
+import type { AnalyzeOptions } from './engine';
+import { findOpenDocument } from './documents';
+import type { TickmarkSettings } from './settings';
+
+export function analyzeOptionsFor(doc: vscode.TextDocument, settings: TickmarkSettings): AnalyzeOptions {
+  const roots = (vscode.workspace.workspaceFolders ?? []).filter((f) => f.uri.scheme === 'file').map((f) => f.uri.fsPath);
+  const ownRoot = vscode.workspace.getWorkspaceFolder(doc.uri);
+  const base = ownRoot?.uri.scheme === 'file' ? ownRoot.uri.fsPath : roots[0];
+  const maxFileBytes = settings.maxSizeKB * 1024;
+  return {
+    defaultTolerance: settings.defaultTolerancePercent / 100,
+    defaultSeries: settings.defaultSeries,
+    dataModel: settings.dataModel,
+    includeDirs: settings.includeFolders.map((dir) => (path.isAbsolute(dir) || base === undefined ? dir : path.join(base, dir))),
+    workspaceRoots: roots,
+    read: (file) => readServingBuffers(file, maxFileBytes),
+    realpath: (file) => {
+      try {
+        return fs.realpathSync(file);
+      } catch {
+        return undefined;
+      }
+    },
+    maxFileBytes,
+  };
+}
+
+function readServingBuffers(file: string, maxFileBytes: number): string | undefined {
+  const open = findOpenDocument(file);
+  if (open) return open.getText();
+  try {
+    if (fs.statSync(file).size > maxFileBytes) return undefined;
+    return fs.readFileSync(file, 'utf8');
+  } catch {
+    return undefined;
+  }
+}

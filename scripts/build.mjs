@@ -1,0 +1,74 @@
+// Bundles the extension, the webview script and the in-editor test suite with esbuild.
+// `node scripts/build.mjs` for development (source maps), `--release` to minify, `--watch` to rebuild.
+import * as esbuild from 'esbuild';
+import { existsSync, rmSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const release = process.argv.includes('--release');
+const watch = process.argv.includes('--watch');
+const at = (p) => path.join(root, p);
+
+const common = {
+  bundle: true,
+  sourcemap: release ? false : 'linked',
+  minify: release,
+  logLevel: 'info',
+  absWorkingDir: root,
+};
+
+/** @type {esbuild.BuildOptions[]} */
+const targets = [
+  {
+    ...common,
+    entryPoints: [at('extension/extension.ts')],
+    outfile: at('out/extension.js'),
+    format: 'cjs',
+    platform: 'node',
+    target: 'node20',
+    external: ['vscode'],
+  },
+];
+
+if (existsSync(at('media/panel.ts'))) {
+  targets.push({
+    ...common,
+    entryPoints: [at('media/panel.ts')],
+    outfile: at('out/media/panel.js'),
+    format: 'esm',
+    platform: 'browser',
+    target: 'es2022',
+  });
+}
+
+// Test suite only for development builds: a packaged extension never carries it.
+if (!release && existsSync(at('test/editor/suite/index.ts'))) {
+  targets.push({
+    ...common,
+    entryPoints: [at('test/editor/suite/index.ts')],
+    outfile: at('out/test/suite/index.js'),
+    format: 'cjs',
+    platform: 'node',
+    target: 'node20',
+    // mocha is bundled so the suite runs inside any extension host, which has no node_modules of ours.
+    external: ['vscode'],
+    sourcemap: 'inline',
+    // Only mocha's parallel mode resolves its worker files; the suite runs serially.
+    logOverride: { 'require-resolve-not-external': 'silent' },
+  });
+}
+
+if (release) rmSync(at('out'), { recursive: true, force: true });
+
+try {
+  if (watch) {
+    const contexts = await Promise.all(targets.map((t) => esbuild.context(t)));
+    await Promise.all(contexts.map((c) => c.watch()));
+  } else {
+    await Promise.all(targets.map((t) => esbuild.build(t)));
+  }
+} catch {
+  // esbuild has already printed the positioned errors.
+  process.exit(1);
+}

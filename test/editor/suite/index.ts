@@ -1,0 +1,15 @@
+// Mocha runner for the tests that run inside a real editor host (code-server here, desktop VS Code with
+// @vscode/test-electron elsewhere). All tests are registered first, then run once.
+import Mocha from 'mocha';
+import { activationTests } from './activation.test';
+import { rangeTests } from './ranges.test';
+
+export function run(): Promise<void> {
+  const mocha = new Mocha({ ui: 'bdd', color: false, reporter: 'spec', timeout: 30_000 });
+  mocha.suite.emit('pre-require', globalThis, 'tickmark-editor-suite', mocha);
+  activationTests();
+  rangeTests();
+  return new Promise((resolve, reject) => {
+    mocha.run((failures) => (failures > 0 ? reject(new Error(`${failures} editor test(s) failed`)) : resolve()));
+  });
+}
