@@ -1,0 +1,127 @@
+// Dimension check of a value tree. Physical units go through mathjs Unit objects built only from
+// our own unit names (never from user text); percent and baud are handled here.
+import { create, UnitDependencies, multiplyScalarDependencies, divideScalarDependencies } from 'mathjs';
+import type { Dim, Finding, Span } from '../types';
+import { Code } from '../codes';
+import type { ValueNode } from './ast';
+
+// A restricted instance: the Unit class and the scalar arithmetic it needs, no parser or evaluator.
+const math = create({ UnitDependencies, multiplyScalarDependencies, divideScalarDependencies });
+type Unit = InstanceType<typeof math.Unit>;
+
+type PhysicalDim = 'Ω' | 'F' | 'V' | 'Hz' | 's' | 'A';
+const mathjsName: Readonly<Record<PhysicalDim, string>> = { 'Ω': 'ohm', F: 'F', V: 'V', Hz: 'Hz', s: 's', A: 'A' };
+const base: ReadonlyArray<[PhysicalDim, Unit]> = (Object.keys(mathjsName) as PhysicalDim[]).map((d) => [d, new math.Unit(1, mathjsName[d])]);
+
+type State =
+  | { kind: 'plain' }
+  | { kind: 'percent' }
+  | { kind: 'baud' }
+  | { kind: 'other' }
+  | { kind: 'unit'; unit: Unit };
+
+const plain: State = { kind: 'plain' };
+
+function stateOf(dim: Dim): State {
+  switch (dim) {
+    case '': return plain;
+    case '%': return { kind: 'percent' };
+    case 'baud': return { kind: 'baud' };
+    case 'other': return { kind: 'other' };
+    default: return { kind: 'unit', unit: new math.Unit(1, mathjsName[dim]) };
+  }
+}
+
+/** mathjs collapses a dimensionless product (Hz · s) to a plain number. */
+function fromMathjs(result: unknown): State {
+  if (typeof result === 'number') return plain;
+  const unit = result as Unit;
+  return unit.dimensions.every((d) => d === 0) ? plain : { kind: 'unit', unit };
+}
+
+function dimOfState(s: State): Dim {
+  switch (s.kind) {
+    case 'plain': return '';
+    case 'percent': return '%';
+    case 'baud': return 'baud';
+    case 'other': return 'other';
+    case 'unit': return base.find(([, u]) => s.unit.equalBase(u))?.[0] ?? 'other';
+  }
+}
+
+function words(s: State): string {
+  if (s.kind === 'plain') return 'a plain number';
+  if (s.kind === 'percent') return 'a percentage';
+  if (s.kind === 'baud') return 'a baud rate';
+  const d = dimOfState(s);
+  return d === 'other' ? 'a compound unit' : d;
+}
+
+class Mismatch {
+  constructor(readonly finding: Finding) {}
+}
+
+function fail(message: string, span: Span): never {
+  throw new Mismatch({ severity: 'error', code: Code.valueUnit, message, span });
+}
+
+const isDimensionless = (s: State): boolean => s.kind === 'plain' || s.kind === 'percent';
+
+function add(op: '+' | '-', a: State, b: State, span: Span): State {
+  if (a.kind === 'other' || b.kind === 'other') return { kind: 'other' };
+  if (a.kind === 'percent' && b.kind === 'percent') return a;
+  if (isDimensionless(a) && isDimensionless(b)) return plain;
+  if (a.kind === 'baud' && b.kind === 'baud') return a;
+  if (a.kind === 'unit' && b.kind === 'unit' && a.unit.equalBase(b.unit)) return a;
+  const verb = op === '+' ? `cannot add ${words(b)} to ${words(a)}` : `cannot subtract ${words(b)} from ${words(a)}`;
+  const hint = a.kind === 'unit' && b.kind === 'plain' ? ` — give the number a unit (${dimOfState(a)})` : '';
+  return fail(`\`${op}\`: ${verb}${hint}`, span);
+}
+
+function multiply(op: '*' | '/', a: State, b: State, span: Span): State {
+  if (a.kind === 'other' || b.kind === 'other') return { kind: 'other' };
+  if (a.kind === 'baud' || b.kind === 'baud') {
+    if (a.kind === 'baud' && b.kind === 'plain') return a;
+    if (op === '*' && a.kind === 'plain') return b;
+    if (op === '/' && a.kind === 'baud' && b.kind === 'baud') return plain;
+    return fail(`\`${op}\`: a baud rate may only be scaled by a plain number; use Hz for arithmetic with other units`, span);
+  }
+  if (b.kind === 'plain') return a;
+  if (op === '*' && a.kind === 'plain') return b;
+  if (a.kind === 'percent' && b.kind === 'percent') return plain;
+  if (op === '*' && a.kind === 'percent') return b;
+  if (b.kind === 'percent') return a.kind === 'percent' ? plain : a;
+  const left = a.kind === 'unit' ? a.unit : undefined;
+  const right = (b as Extract<State, { kind: 'unit' }>).unit;
+  if (op === '*') return left ? fromMathjs(left.multiply(right)) : b;
+  return left ? fromMathjs(left.divide(right)) : fromMathjs((right as unknown as { pow(n: number): Unit }).pow(-1));
+}
+
+function walk(node: ValueNode, lookup: (name: string) => Dim | undefined): State {
+  switch (node.kind) {
+    case 'number': return stateOf(node.dim);
+    case 'ident': {
+      const dim = lookup(node.name);
+      if (dim === undefined) {
+        throw new Mismatch({ severity: 'error', code: Code.identifierUnknown, message: `unknown name \`${node.name}\``, span: node.span });
+      }
+      return stateOf(dim);
+    }
+    case 'unary': return walk(node.arg, lookup);
+    case 'binary': {
+      const a = walk(node.left, lookup);
+      const b = walk(node.right, lookup);
+      return node.op === '+' || node.op === '-' ? add(node.op, a, b, node.opSpan) : multiply(node.op, a, b, node.opSpan);
+    }
+  }
+}
+
+/** The dimension of a tree (47 kΩ * 100 nF → 's', 1 / (50 Hz) → 's'), or a finding at the offending operator or name. */
+export function dimOf(expr: ValueNode, lookup: (name: string) => Dim | undefined): { dim: Dim } | { finding: Finding } {
+  try {
+    return { dim: dimOfState(walk(expr, lookup)) };
+  } catch (e) {
+    if (e instanceof Mismatch) return { finding: e.finding };
+    throw e;
+  }
+}
