@@ -19,6 +19,8 @@ export interface QuantityParam {
   solvable?: boolean;
   /** Integer-valued (registers, stages, oversampling). */
   integer?: boolean;
+  /** May be left out without a default: the model then runs without it (timer `compare`, baud `divisor`). */
+  optional?: boolean;
   description: string;
 }
 
@@ -51,6 +53,8 @@ export interface ModelInput {
   values: Readonly<Record<string, number>>;
   choices: Readonly<Record<string, string>>;
   lists: Readonly<Record<string, IntegerSet>>;
+  /** The block's name when it has one: cautions depend on use (a timer named `watchdog`). */
+  name?: string;
 }
 
 export interface ResultSpec {

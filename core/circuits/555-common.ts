@@ -1,0 +1,27 @@
+// What the 555 astable and monostable share: the control pin and its levels.
+import type { ModelInput, ModelIssue, QuantityParam, Waveform } from './model';
+import { eng, voltage } from './common';
+
+/** The internal divider puts the control pin at 2/3 VCC when it is left open (NE555 datasheet, SLFS022). */
+export const controlParam: QuantityParam = voltage('control', 'control voltage (threshold level)', 'Voltage on the control pin; the trigger level is half of it.', {
+  default: (v) => (2 / 3) * v.supply,
+  defaultText: '2/3 supply',
+});
+
+export function controlIssues(input: ModelInput): ModelIssue[] {
+  const { supply, control } = input.values;
+  if (control >= supply) {
+    return [{ key: 'control', message: `control ${eng(control, 'V')} is at or above the supply ${eng(supply, 'V')}: the capacitor never reaches the threshold` }];
+  }
+  return [];
+}
+
+/** Threshold levels, named by their share of the supply when the control pin is left at its default. */
+export function levelLabels(input: ModelInput): Waveform['levels'] {
+  const { supply, control } = input.values;
+  const atDefault = Math.abs(control - (2 / 3) * supply) <= 1e-9 * supply;
+  return [
+    { label: atDefault ? '2/3 supply' : 'control', value: control },
+    { label: atDefault ? '1/3 supply' : 'control/2', value: control / 2 },
+  ];
+}

@@ -1,0 +1,112 @@
+// Building blocks shared by the circuit model files: parameter specs, checks, number text, cautions.
+import type { ModelInput, ModelIssue, QuantityParam, ResultSpec } from './model';
+
+type Defaults = Pick<QuantityParam, 'default' | 'defaultText' | 'solvable' | 'min' | 'max' | 'integer' | 'optional'>;
+
+export function quantity(key: string, label: string, dim: QuantityParam['dim'], description: string, more: Defaults = {}): QuantityParam {
+  return { kind: 'quantity', key, label, dim, description, ...more };
+}
+
+export const resistor = (key: string, label: string, description: string, more: Defaults = {}) =>
+  quantity(key, label, 'Ω', description, { solvable: true, ...more });
+
+export const capacitor = (key: string, label: string, description: string, more: Defaults = {}) =>
+  quantity(key, label, 'F', description, { solvable: true, ...more });
+
+export const voltage = (key: string, label: string, description: string, more: Defaults = {}) =>
+  quantity(key, label, 'V', description, more);
+
+/** Results of every relaxation oscillator, in the order of DESIGN.md. */
+export const oscillatorResults: readonly ResultSpec[] = [
+  { key: 'high', label: 'output high time', dim: 's' },
+  { key: 'low', label: 'output low time', dim: 's' },
+  { key: 'period', label: 'period', dim: 's' },
+  { key: 'frequency', label: 'frequency', dim: 'Hz' },
+  { key: 'duty', label: 'duty (high / period)', dim: '', percent: true },
+  { key: 'startup', label: 'startup (first transition from a discharged capacitor)', dim: 's' },
+];
+
+export const oscillatorHeadline = ['frequency', 'duty', 'startup'] as const;
+
+/** A value that must be present and finite; reports it under its own key. */
+export function checkFinite(input: ModelInput, keys: readonly string[], issues: ModelIssue[]): boolean {
+  let ok = true;
+  for (const key of keys) {
+    const value = input.values[key];
+    if (value === undefined || !Number.isFinite(value)) {
+      issues.push({ key, message: `\`${key}\` needs a finite value` });
+      ok = false;
+    }
+  }
+  return ok;
+}
+
+/** R, C, τ and the like: zero or negative values have no physical meaning here. */
+export function checkPositive(input: ModelInput, keys: readonly string[], issues: ModelIssue[]): boolean {
+  let ok = true;
+  for (const key of keys) {
+    const value = input.values[key];
+    if (value === undefined || !Number.isFinite(value)) {
+      issues.push({ key, message: `\`${key}\` needs a finite value` });
+      ok = false;
+    } else if (value <= 0) {
+      issues.push({ key, message: `\`${key}\` must be greater than zero (got ${eng(value)})` });
+      ok = false;
+    }
+  }
+  return ok;
+}
+
+export function hasErrors(issues: readonly ModelIssue[]): boolean {
+  return issues.some((issue) => (issue.severity ?? 'error') === 'error');
+}
+
+/** Drops anything non-finite, so a result map never carries NaN or infinities. */
+export function finiteOnly(results: Record<string, number>): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [key, value] of Object.entries(results)) if (Number.isFinite(value)) out[key] = value;
+  return out;
+}
+
+const prefixes: Record<number, string> = { [-15]: 'f', [-12]: 'p', [-9]: 'n', [-6]: 'µ', [-3]: 'm', 0: '', 3: 'k', 6: 'M', 9: 'G', 12: 'T' };
+
+/** Engineering notation (exponent a multiple of 3) with an SI prefix and four significant figures. */
+export function eng(value: number, unit = ''): string {
+  if (!Number.isFinite(value)) return String(value);
+  const space = unit ? ' ' : '';
+  if (value === 0) return `0${space}${unit}`;
+  const exponent = Math.max(-15, Math.min(12, Math.floor(Math.log10(Math.abs(value)) / 3) * 3));
+  let mantissa = value / 10 ** exponent;
+  let text = Number(mantissa.toPrecision(4)).toString();
+  if (Math.abs(Number(text)) >= 1000 && exponent < 12) {
+    mantissa /= 1000;
+    text = Number(mantissa.toPrecision(4)).toString();
+    return `${text}${space}${prefixes[exponent + 3]}${unit}`;
+  }
+  return `${text}${space}${prefixes[exponent]}${unit}`;
+}
+
+/** A fraction as percent text with sensible digits (0.0016 → "0.16 %"). */
+export function percent(fraction: number): string {
+  return `${Number((fraction * 100).toPrecision(3))} %`;
+}
+
+/** The ELV limit for DC (IEC 61140 band I/II boundary, common practice): 60 V. */
+export const elvLimitVolts = 60;
+
+export function voltageCautions(input: ModelInput, keys: readonly string[]): string[] {
+  const highest = Math.max(0, ...keys.map((key) => Math.abs(input.values[key] ?? 0)).filter(Number.isFinite));
+  if (highest <= elvLimitVolts) return [];
+  return [
+    `${eng(highest, 'V')} is above the ${elvLimitVolts} V DC extra-low-voltage limit (IEC 61140, common practice): ` +
+      'hazardous voltage — follow local codes and licensed practice.',
+  ];
+}
+
+const safetyWords = /watchdog|\bwdt\b|reset|brown-?out|supervis|safety|interlock/i;
+
+/** Timing that guards a system needs checking apart from the arithmetic that set it. */
+export function safetyCautions(input: ModelInput): string[] {
+  if (!input.name || !safetyWords.test(input.name)) return [];
+  return ['Used as watchdog, reset or safety timing: verify it independently (measurement, worst case over tolerance and temperature).'];
+}
