@@ -1,0 +1,16 @@
+/* UART to the radio module. */
+#include "../include/board.h"
+
+/*
+ * @timing radio-uart
+ * circuit: baud
+ * clock: SYS_CLOCK_HZ
+ * baud: RADIO_BAUD
+ * oversampling: UART_OVERSAMPLING
+ * divisor: UART_DIVISOR
+ * expect: 9600 baud ±1%
+ */
+void radio_uart_init(void)
+{
+    uart_set_divisor(UART1, UART_DIVISOR);
+}

@@ -1,0 +1,23 @@
+/* Cooperative scheduler: every task runs from the 1 ms tick. */
+#include "../include/board.h"
+
+/* @timing scheduler-tick
+ * circuit: timer
+ * clock: SYS_CLOCK_HZ
+ * prescaler: TICK_DIV
+ * reload: TICK_TOP
+ * expect: 1 kHz ±0.5%
+ */
+void scheduler_init(void)
+{
+    timer_set_prescaler(TIMER2, TICK_DIV - 1u);
+    timer_set_reload(TIMER2, TICK_TOP);
+    timer_enable_irq(TIMER2);
+}
+
+static volatile uint32_t ticks;
+
+void TIMER2_IRQHandler(void)
+{
+    ticks++;
+}
