@@ -242,7 +242,7 @@ function evaluationOrder(plan: Plan, raw: RawBlock): string[] {
       plan.findings.push(
         error(Code.identifierCycle, `\`${spec.key}\` depends on ${names.map((n) => `\`${n}\``).join(', ')}, which ${names.length > 1 ? 'have' : 'has'} no value (a cycle, or a missing key)`, slot.entry.valueSpan),
       );
-    } else if (!plan.entries.has(spec.key)) {
+    } else if (!plan.entries.has(spec.key) && !spec.optional) {
       plan.findings.push(error(Code.keyRequired, `${plan.model.id} needs \`${spec.key}\` (${spec.label})`, raw.headerSpan));
     }
   }

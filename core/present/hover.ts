@@ -1,0 +1,91 @@
+// The hover of a block as Markdown: every result, the spread, solved parts, where constants come from, the
+// working with its sources, assumptions and cautions. All text from the document is escaped.
+import * as path from 'node:path';
+import type { BlockAnalysis } from '../types';
+import type { CircuitModel } from '../circuits/model';
+import { circuitById } from '../circuits/registry';
+import { formatQuantity, formatPercent } from '../format';
+import { bandText, formatResult } from './values';
+
+/** Escapes text for Markdown so a block name or value cannot become markup, a link or HTML. */
+export function escapeMarkdown(text: string): string {
+  return text.replace(/[\\`*_{}[\]()#+\-.!|<>&~"']/g, (ch) => (ch === '<' ? '&lt;' : ch === '>' ? '&gt;' : ch === '&' ? '&amp;' : '\\' + ch));
+}
+
+function code(text: string): string {
+  // Inline code cannot carry markup; a backtick inside is replaced so the span cannot be closed early.
+  return '`' + text.replace(/`/g, 'ʹ').replace(/\r?\n/g, ' ') + '`';
+}
+
+export interface HoverOptions {
+  /** Folder that identifier locations are shown relative to. */
+  relativeTo?: string;
+}
+
+export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {}): string {
+  const model = analysis.circuit ? circuitById(analysis.circuit) : undefined;
+  const out: string[] = [];
+  out.push(`**${escapeMarkdown(analysis.name)}** — ${model ? escapeMarkdown(model.title) : 'timing block'}`);
+  const errors = analysis.findings.filter((f) => f.severity !== 'info');
+  for (const f of errors) out.push(`${f.severity === 'error' ? '⛔' : '⚠️'} ${escapeMarkdown(f.message)}`);
+  if (!model) return out.join('\n\n');
+
+  const keys = Object.keys(analysis.values);
+  if (keys.length) {
+    const rows = ['| result | value | worst case |', '|---|---|---|'];
+    for (const spec of model.results) {
+      const value = analysis.values[spec.key];
+      if (value === undefined) continue;
+      const band = analysis.spread?.[spec.key];
+      const spread = band && band.max > band.min ? bandText(model, spec.key, band.min, band.max) : '';
+      rows.push(`| ${escapeMarkdown(spec.label)} | ${formatResult(model, spec.key, value)} | ${spread} |`);
+    }
+    out.push(rows.join('\n'));
+  }
+  const shares = sharesLine(analysis, model);
+  if (shares) out.push(shares);
+  for (const [key, part] of Object.entries(analysis.solved ?? {})) {
+    const dim = paramDim(model, key);
+    const exact = part.exact !== undefined ? `exact ${formatQuantity(part.exact, dim)}; ` : '';
+    const error = part.error !== undefined ? ` (${part.error === 0 ? 'exact' : formatPercent(part.error) + ' from target'})` : '';
+    out.push(`**solved** ${code(key)}: ${exact}use ${formatQuantity(part.value, dim)}${part.series ? ` (${part.series})` : ''}${error}`);
+  }
+  if (analysis.identifiers.length) {
+    const lines = analysis.identifiers.map((id) => {
+      const where = options.relativeTo ? path.relative(options.relativeTo, id.uri) : path.basename(id.uri);
+      return `- ${code(id.name)} = ${formatQuantity(id.value, '')} — ${escapeMarkdown(where.split(path.sep).join('/'))}:${id.line}`;
+    });
+    out.push('**firmware constants**\n' + lines.join('\n'));
+  }
+  const working = safeWorking(model, analysis);
+  if (working.length) {
+    out.push('**working**\n' + working.map((w) => `- ${code(w.formula)}\n  ${code(w.substituted)}\n  *${escapeMarkdown(w.source)}*`).join('\n'));
+  }
+  if (model.assumptions.length) out.push('**assumes** ' + model.assumptions.map(escapeMarkdown).join('; '));
+  for (const f of analysis.findings.filter((f) => f.severity === 'info')) out.push(`ℹ️ ${escapeMarkdown(f.message)}`);
+  return out.join('\n\n');
+}
+
+function sharesLine(analysis: BlockAnalysis, model: CircuitModel): string | undefined {
+  const first = model.headline.find((k) => analysis.spread?.[k]?.shares);
+  const shares = first ? analysis.spread![first].shares! : undefined;
+  if (!shares) return undefined;
+  const sorted = Object.entries(shares).filter(([, s]) => s > 0.005).sort((a, b) => b[1] - a[1]);
+  if (!sorted.length) return undefined;
+  return `**spread of ${escapeMarkdown(first!)} comes from** ` + sorted.map(([k, s]) => `${code(k)} ${Math.round(s * 100)} %`).join(', ');
+}
+
+function paramDim(model: CircuitModel, key: string) {
+  const spec = model.params.find((p) => p.key === key);
+  return spec && spec.kind === 'quantity' ? spec.dim : '';
+}
+
+function safeWorking(model: CircuitModel, analysis: BlockAnalysis) {
+  if (!Object.keys(analysis.values).length) return [];
+  try {
+    return model.working({ values: analysis.params, choices: analysis.choices, lists: {}, name: analysis.block.name }, analysis.values);
+  } catch {
+    return [];
+  }
+}
+
