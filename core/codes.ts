@@ -35,6 +35,8 @@ export const Code = {
   cConditional: 'c-conditional',
   cInclude: 'c-include',
   cExpansionLimit: 'c-expansion-limit',
+  /** Undefined behaviour in a constant expression: shift count out of range, float-to-integer overflow. */
+  cUndefined: 'c-undefined',
   // files
   fileTooLarge: 'file-too-large',
   fileUnreadable: 'file-unreadable',

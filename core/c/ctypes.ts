@@ -1,0 +1,130 @@
+// C arithmetic types under a data model, and the conversions of ISO C11 6.3.
+
+export type DataModel = 'ilp32' | 'lp64' | 'ip16';
+
+export interface IntType { kind: 'int'; name: string; bits: number; signed: boolean; /** C11 6.3.1.1 conversion rank. */ rank: number }
+export interface FloatType { kind: 'float'; name: 'float' | 'double' | 'long double'; rank: number }
+export type CType = IntType | FloatType;
+
+/** An evaluated value: BigInt for integer types, a JS double for floating types. */
+export interface Val { v: bigint | number; t: CType }
+
+const RANK = { bool: 0, char: 1, short: 2, int: 3, long: 4, llong: 5 };
+
+export interface TypeSystem {
+  model: DataModel;
+  /** Keyword spellings (`unsigned long`, `int`) and the <stdint.h> names. */
+  named: Map<string, CType>;
+  int: IntType;
+  uint: IntType;
+  llong: IntType;
+  ullong: IntType;
+  double: FloatType;
+  sizeT: IntType;
+}
+
+const it = (name: string, bits: number, signed: boolean, rank: number): IntType => ({ kind: 'int', name, bits, signed, rank });
+
+/** `charSigned`: plain char is signed on x86 and AVR gcc, unsigned on ARM (an implementation choice, C11 6.2.5p15). */
+export function typeSystem(model: DataModel, charSigned = true): TypeSystem {
+  const intBits = model === 'ip16' ? 16 : 32;
+  const longBits = model === 'lp64' ? 64 : 32;
+  const types: IntType[] = [
+    it('_Bool', 1, false, RANK.bool),
+    it('char', 8, charSigned, RANK.char), it('signed char', 8, true, RANK.char), it('unsigned char', 8, false, RANK.char),
+    it('short', 16, true, RANK.short), it('unsigned short', 16, false, RANK.short),
+    it('int', intBits, true, RANK.int), it('unsigned int', intBits, false, RANK.int),
+    it('long', longBits, true, RANK.long), it('unsigned long', longBits, false, RANK.long),
+    it('long long', 64, true, RANK.llong), it('unsigned long long', 64, false, RANK.llong),
+  ];
+  const named = new Map<string, CType>(types.map((t) => [t.name, t]));
+  named.set('float', { kind: 'float', name: 'float', rank: 0 });
+  named.set('double', { kind: 'float', name: 'double', rank: 1 });
+  named.set('long double', { kind: 'float', name: 'long double', rank: 2 });
+  const by = (n: string): IntType => named.get(n) as IntType;
+  // <stdint.h> as glibc (x86, x86-64) and avr-libc define them; the names keep their spelling for display.
+  const alias = (name: string, of: string): void => { named.set(name, { ...by(of), name }); };
+  alias('int8_t', 'signed char'); alias('uint8_t', 'unsigned char');
+  alias('int16_t', model === 'ip16' ? 'int' : 'short'); alias('uint16_t', model === 'ip16' ? 'unsigned int' : 'unsigned short');
+  alias('int32_t', model === 'ip16' ? 'long' : 'int'); alias('uint32_t', model === 'ip16' ? 'unsigned long' : 'unsigned int');
+  alias('int64_t', model === 'lp64' ? 'long' : 'long long'); alias('uint64_t', model === 'lp64' ? 'unsigned long' : 'unsigned long long');
+  alias('size_t', model === 'lp64' ? 'unsigned long' : 'unsigned int');
+  alias('bool', '_Bool');
+  return {
+    model, named, int: by('int'), uint: by('unsigned int'), llong: by('long long'), ullong: by('unsigned long long'),
+    double: named.get('double') as FloatType, sizeT: named.get('size_t') as IntType,
+  };
+}
+
+export const maxOf = (t: IntType): bigint => (t.signed ? (1n << BigInt(t.bits - 1)) - 1n : (1n << BigInt(t.bits)) - 1n);
+export const minOf = (t: IntType): bigint => (t.signed ? -(1n << BigInt(t.bits - 1)) : 0n);
+export const fits = (v: bigint, t: IntType): boolean => v >= minOf(t) && v <= maxOf(t);
+
+/** Integer to integer: modulo 2^N for unsigned (C11 6.3.1.3p2); gcc documents the same wrap for signed. */
+export function wrap(v: bigint, t: IntType): bigint {
+  if (t.bits === 1) return v !== 0n ? 1n : 0n;
+  return t.signed ? BigInt.asIntN(t.bits, v) : BigInt.asUintN(t.bits, v);
+}
+
+/** Converts a value to a type; floating to integer out of range is undefined (C11 6.3.1.4p1), so it returns an error text. */
+export function convert(x: Val, t: CType): Val | string {
+  if (t.kind === 'float') {
+    const d = typeof x.v === 'bigint' ? Number(x.v) : x.v;
+    return { v: t.name === 'float' ? Math.fround(d) : d, t };
+  }
+  if (typeof x.v === 'bigint') return { v: wrap(x.v, t), t };
+  if (t.bits === 1) return { v: x.v !== 0 ? 1n : 0n, t };
+  if (!Number.isFinite(x.v)) return `${x.v} cannot be converted to ${t.name}`;
+  const truncated = BigInt(Math.trunc(x.v));
+  if (!fits(truncated, t)) return `${x.v} is out of range of ${t.name} (undefined behaviour, C11 6.3.1.4)`;
+  return { v: truncated, t };
+}
+
+/** Integer promotions, C11 6.3.1.1p2. */
+export function promote(t: CType, ts: TypeSystem): CType {
+  if (t.kind === 'float' || t.rank >= RANK.int) return t;
+  return t.bits < ts.int.bits || (t.bits === ts.int.bits && t.signed) ? ts.int : ts.uint;
+}
+
+/** The usual arithmetic conversions, C11 6.3.1.8p1: the common type of two operands. */
+export function commonType(a: CType, b: CType, ts: TypeSystem): CType {
+  if (a.kind === 'float' || b.kind === 'float') {
+    if (a.kind === 'float' && b.kind === 'float') return a.rank >= b.rank ? a : b;
+    return a.kind === 'float' ? a : b;
+  }
+  const x = promote(a, ts) as IntType;
+  const y = promote(b, ts) as IntType;
+  if (x.signed === y.signed) return x.rank >= y.rank ? x : y;
+  const [u, s] = x.signed ? [y, x] : [x, y];
+  if (u.rank >= s.rank) return u;
+  if (s.bits > u.bits) return s;
+  return unsignedOf(s, ts);
+}
+
+export function unsignedOf(t: IntType, ts: TypeSystem): IntType {
+  for (const c of ts.named.values()) if (c.kind === 'int' && !c.signed && c.rank === t.rank && c.bits === t.bits && !c.name.includes('_t')) return c;
+  return { ...t, signed: false, name: `unsigned ${t.name}` };
+}
+
+/** Canonical name of a run of type keywords (`long unsigned int` → `unsigned long`), or undefined when they do not form one. */
+export function keywordTypeName(words: string[]): string | undefined {
+  let sign = ''; let longs = 0; let base = ''; let short = false;
+  for (const w of words) {
+    if (w === 'const' || w === 'volatile') continue;
+    if (w === 'signed' || w === 'unsigned') { if (sign) return undefined; sign = w; }
+    else if (w === 'long') longs++;
+    else if (w === 'short') short = true;
+    else if (w === 'int' || w === 'char' || w === 'float' || w === 'double' || w === '_Bool') { if (base) return undefined; base = w; }
+    else return undefined;
+  }
+  if (base === 'float' || base === '_Bool') return sign || longs || short ? undefined : base;
+  if (base === 'double') return sign || short || longs > 1 ? undefined : longs ? 'long double' : 'double';
+  if (base === 'char') return longs || short ? undefined : sign ? `${sign} char` : 'char';
+  if (short && longs) return undefined;
+  if (longs > 2) return undefined;
+  const size = short ? 'short' : longs === 2 ? 'long long' : longs === 1 ? 'long' : base === 'int' || sign ? 'int' : '';
+  if (!size) return undefined;
+  return sign === 'unsigned' ? `unsigned ${size}` : size;
+}
+
+export const TYPE_KEYWORDS = new Set(['signed', 'unsigned', 'long', 'short', 'int', 'char', 'float', 'double', '_Bool', 'const', 'volatile']);

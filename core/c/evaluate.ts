@@ -1,0 +1,137 @@
+// Evaluates a parsed constant expression with C's rules (ISO C11 6.3, 6.5).
+// `live` is false inside an operand that C does not evaluate (the untaken arm of ?:, the right of a
+// short-circuited && or ||): its type still counts, its division by zero does not.
+import { Code } from '../codes';
+import { commonType, convert, promote, wrap, type CType, type IntType, type TypeSystem, type Val } from './ctypes';
+import { parseChar, parseNumber } from './literals';
+import type { Node } from './parse';
+import type { SourceToken } from './tokens';
+
+export interface EvalError { err: string; code: string; tok?: SourceToken }
+export type EvalResult = Val | EvalError;
+
+export const isError = (r: unknown): r is EvalError => typeof r === 'object' && r !== null && 'err' in r;
+
+export interface EvalContext {
+  ts: TypeSystem;
+  /** Inside #if: integers act as intmax_t (C11 6.10.1p4). */
+  pp?: boolean;
+  identifier(tok: SourceToken): EvalResult;
+}
+
+const truth = (x: Val): boolean => (typeof x.v === 'bigint' ? x.v !== 0n : x.v !== 0);
+const bool = (b: boolean, ts: TypeSystem): Val => ({ v: b ? 1n : 0n, t: ts.int });
+
+export function evaluate(node: Node, ctx: EvalContext, live = true): EvalResult {
+  const { ts } = ctx;
+  const undefinedBehaviour = (err: string, tok: SourceToken, t: CType): EvalResult =>
+    live ? { err, code: Code.cUndefined, tok } : { v: t.kind === 'float' ? 0 : 0n, t };
+  switch (node.k) {
+    case 'num': {
+      const r = parseNumber(node.tok.text, ts, ctx.pp);
+      return typeof r === 'string' ? { err: r, code: Code.cSyntax, tok: node.tok } : r;
+    }
+    case 'char': {
+      const r = parseChar(node.tok.text, ts);
+      return typeof r === 'string' ? { err: r, code: Code.cSyntax, tok: node.tok } : r;
+    }
+    case 'ident':
+      if (node.tok.text === 'true' || node.tok.text === 'false') {
+        const r = ctx.identifier(node.tok);
+        return isError(r) && r.code === Code.cUnknown ? bool(node.tok.text === 'true', ts) : r;
+      }
+      return ctx.identifier(node.tok);
+    case 'unary': {
+      const a = evaluate(node.arg, ctx, live);
+      if (isError(a)) return a;
+      if (node.op === '!') return bool(!truth(a), ts);
+      const t = promote(a.t, ts);
+      const x = convert(a, t) as Val;
+      if (node.op === '+') return x;
+      if (typeof x.v === 'number') return node.op === '-' ? { v: -x.v, t } : { err: `'~' needs an integer operand`, code: Code.cSyntax, tok: node.tok };
+      return { v: wrap(node.op === '-' ? -x.v : ~x.v, t as IntType), t };
+    }
+    case 'cast': {
+      const a = evaluate(node.arg, ctx, live);
+      if (isError(a)) return a;
+      const r = convert(a, node.type);
+      return typeof r === 'string' ? undefinedBehaviour(r, node.tok, node.type) : r;
+    }
+    case 'sizeof': {
+      let t = node.type;
+      if (!t) {
+        const a = evaluate(node.arg as Node, ctx, false);
+        if (isError(a)) return a;
+        t = a.t;
+      }
+      const bytes = t.kind === 'int' ? Math.max(1, t.bits / 8) : t.name === 'float' ? 4 : t.name === 'double' ? 8 : undefined;
+      if (bytes === undefined) return { err: `sizeof(${t.name}) depends on the compiler`, code: Code.cSyntax, tok: node.tok };
+      return { v: BigInt(bytes), t: ts.sizeT };
+    }
+    case 'cond': {
+      const c = evaluate(node.c, ctx, live);
+      if (isError(c)) return c;
+      const take = truth(c);
+      const a = evaluate(node.a, ctx, live && take);
+      if (isError(a)) return a;
+      const b = evaluate(node.b, ctx, live && !take);
+      if (isError(b)) return b;
+      // Both arms arithmetic: the result has their common type (C11 6.5.15p5).
+      return convert(take ? a : b, commonType(a.t, b.t, ts)) as Val;
+    }
+    case 'binary':
+      return binary(node, ctx, live);
+  }
+}
+
+function binary(node: Extract<Node, { k: 'binary' }>, ctx: EvalContext, live: boolean): EvalResult {
+  const { ts } = ctx;
+  const { op, tok } = node;
+  const a = evaluate(node.l, ctx, live);
+  if (isError(a)) return a;
+  if (op === '&&' || op === '||') {
+    const shortCircuit = op === '&&' ? !truth(a) : truth(a);
+    const b = evaluate(node.r, ctx, live && !shortCircuit);
+    if (isError(b)) return b;
+    return bool(shortCircuit ? op === '||' : truth(b), ts);
+  }
+  const b = evaluate(node.r, ctx, live);
+  if (isError(b)) return b;
+  const integerOnly = (): EvalError => ({ err: `'${op}' needs integer operands, not ${a.t.name} and ${b.t.name}`, code: Code.cSyntax, tok });
+
+  if (op === '<<' || op === '>>') {
+    // Each operand is promoted on its own; the result has the left one's type (C11 6.5.7p3).
+    const lt = promote(a.t, ts);
+    if (lt.kind === 'float' || b.t.kind === 'float') return integerOnly();
+    const x = (convert(a, lt) as Val).v as bigint;
+    const count = b.v as bigint;
+    if (count < 0n || count >= BigInt(lt.bits)) {
+      if (!live) return { v: 0n, t: lt };
+      return { err: `shift count ${count} is out of range for ${lt.name} (undefined behaviour, C11 6.5.7p3)`, code: Code.cUndefined, tok };
+    }
+    return { v: wrap(op === '<<' ? x << count : x >> count, lt), t: lt };
+  }
+
+  const t = commonType(a.t, b.t, ts);
+  const x = (convert(a, t) as Val).v;
+  const y = (convert(b, t) as Val).v;
+  if (op === '==' || op === '!=' || op === '<' || op === '>' || op === '<=' || op === '>=') {
+    const r = op === '==' ? x === y : op === '!=' ? x !== y : op === '<' ? x < y : op === '>' ? x > y : op === '<=' ? x <= y : x >= y;
+    return bool(r, ts);
+  }
+  if ((op === '/' || op === '%') && (y === 0n || y === 0)) {
+    if (!live) return { v: t.kind === 'float' ? 0 : 0n, t };
+    return { err: `division by zero in '${op}'`, code: Code.cDivZero, tok };
+  }
+  if (typeof x === 'number' || typeof y === 'number') {
+    const p = x as number;
+    const q = y as number;
+    const f = op === '+' ? p + q : op === '-' ? p - q : op === '*' ? p * q : op === '/' ? p / q : undefined;
+    if (f === undefined) return integerOnly();
+    return { v: t.name === 'float' ? Math.fround(f) : f, t };
+  }
+  // BigInt division and remainder truncate toward zero, as C11 6.5.5p6 requires.
+  const r = op === '+' ? x + y : op === '-' ? x - y : op === '*' ? x * y : op === '/' ? x / y : op === '%' ? x % y
+    : op === '&' ? x & y : op === '|' ? x | y : x ^ y;
+  return { v: wrap(r, t as IntType), t };
+}

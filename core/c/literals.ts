@@ -1,0 +1,88 @@
+// Integer, floating and character constants: value and type (ISO C11 6.4.4).
+import { fits, type CType, type IntType, type TypeSystem, type Val } from './ctypes';
+
+/** Types tried in order by suffix and base, C11 6.4.4.1p5 (binary 0b, a gcc extension, types like hex). */
+function candidates(suffix: string, decimal: boolean): string[] {
+  const u = suffix.includes('u');
+  const longs = suffix.includes('ll') ? 2 : suffix.includes('l') ? 1 : 0;
+  if (u) return ['unsigned int', 'unsigned long', 'unsigned long long'].slice(longs);
+  const signedOnly = ['int', 'long', 'long long'].slice(longs);
+  if (decimal) return signedOnly;
+  return ['int', 'unsigned int', 'long', 'unsigned long', 'long long', 'unsigned long long'].slice(longs * 2);
+}
+
+const SUFFIX = /(?:[uU](?:ll|LL|l|L)?|(?:ll|LL|l|L)[uU]?)$/;
+
+/** `pp`: inside #if every integer acts as intmax_t or uintmax_t (C11 6.10.1p4). */
+export function parseNumber(text: string, ts: TypeSystem, pp = false): Val | string {
+  const isHex = /^0[xX]/.test(text);
+  if (isHex ? /[pP]/.test(text) : /^[0-9]*\.|^[0-9]+[eE]/.test(text) && !/^0[bB]/.test(text)) return parseFloating(text, ts);
+  const m = SUFFIX.exec(text);
+  const suffix = m ? m[0].toLowerCase() : '';
+  const digits = m ? text.slice(0, m.index) : text;
+  let value: bigint;
+  let decimal = false;
+  if (/^0[xX][0-9a-fA-F]+$/.test(digits)) value = BigInt(digits);
+  else if (/^0[bB][01]+$/.test(digits)) value = BigInt(digits);
+  else if (/^0[0-7]*$/.test(digits)) value = digits.length > 1 ? BigInt('0o' + digits.slice(1)) : 0n;
+  else if (/^[1-9][0-9]*$/.test(digits)) { value = BigInt(digits); decimal = true; }
+  else return `'${text}' is not a valid integer constant`;
+  if (pp) {
+    const t = suffix.includes('u') || !fits(value, ts.llong) ? ts.ullong : ts.llong;
+    return fits(value, t) ? { v: value, t } : `integer constant '${text}' is too large for any type`;
+  }
+  for (const name of candidates(suffix, decimal)) {
+    const t = ts.named.get(name) as IntType;
+    if (fits(value, t)) return { v: value, t };
+  }
+  return `integer constant '${text}' is too large for any type (C11 6.4.4.1)`;
+}
+
+function parseFloating(text: string, ts: TypeSystem): Val | string {
+  const m = /^(.*?)([fFlL]?)$/.exec(text) as RegExpExecArray;
+  const body = m[1];
+  const suffix = m[2].toLowerCase();
+  let value: number;
+  if (/^0[xX]/.test(body)) {
+    const h = /^0[xX]([0-9a-fA-F]*)(?:\.([0-9a-fA-F]*))?[pP]([+-]?[0-9]+)$/.exec(body);
+    if (!h || (h[1] + (h[2] ?? '')).length === 0) return `'${text}' is not a valid floating constant`;
+    const frac = h[2] ?? '';
+    value = (parseInt(h[1] + frac || '0', 16) / 16 ** frac.length) * 2 ** Number(h[3]);
+  } else {
+    if (!/^(?:[0-9]+\.?[0-9]*|\.[0-9]+)(?:[eE][+-]?[0-9]+)?$/.test(body)) return `'${text}' is not a valid floating constant`;
+    value = Number(body);
+  }
+  if (!Number.isFinite(value)) return `floating constant '${text}' is out of range`;
+  const t = ts.named.get(suffix === 'f' ? 'float' : suffix === 'l' ? 'long double' : 'double') as CType;
+  return { v: suffix === 'f' ? Math.fround(value) : value, t };
+}
+
+const SIMPLE_ESCAPES: Record<string, number> = {
+  n: 10, t: 9, r: 13, '0': 0, '\\': 92, "'": 39, '"': 34, a: 7, b: 8, f: 12, v: 11, '?': 63, e: 27,
+};
+
+/** An unprefixed character constant has type int and the value of the char (C11 6.4.4.4p10). */
+export function parseChar(text: string, ts: TypeSystem): Val | string {
+  if (!text.startsWith("'")) return `prefixed character constant ${text} is not supported`;
+  const inner = text.slice(1, -1);
+  const codes: number[] = [];
+  for (let i = 0; i < inner.length;) {
+    if (inner[i] !== '\\') { codes.push(inner.charCodeAt(i)); i++; continue; }
+    const e = inner[i + 1];
+    const oct = /^[0-7]{1,3}/.exec(inner.slice(i + 1));
+    if (oct) { codes.push(parseInt(oct[0], 8)); i += 1 + oct[0].length; continue; }
+    if (e === 'x') {
+      const hex = /^[0-9a-fA-F]+/.exec(inner.slice(i + 2));
+      if (!hex) return `\\x in ${text} has no hex digits`;
+      codes.push(parseInt(hex[0], 16)); i += 2 + hex[0].length; continue;
+    }
+    if (e !== undefined && e in SIMPLE_ESCAPES) { codes.push(SIMPLE_ESCAPES[e]); i += 2; continue; }
+    return `unknown escape sequence in ${text}`;
+  }
+  if (codes.length === 0) return 'empty character constant';
+  if (codes.length > 1) return `multi-character constant ${text} has an implementation-defined value`;
+  if (codes[0] > 255) return `character ${text} does not fit in a char`;
+  const c = BigInt(codes[0]);
+  const charType = ts.named.get('char') as IntType;
+  return { v: charType.signed && c > 127n ? c - 256n : c, t: ts.int };
+}

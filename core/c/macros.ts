@@ -1,0 +1,132 @@
+// Macro expansion with hide sets, so a macro is never re-expanded inside its own expansion (ISO C11 6.10.3.4p2).
+// Bounded: a token budget and a nesting depth, past which expansion stops with cExpansionLimit.
+import { Code } from '../codes';
+import type { Span } from '../types';
+import type { EvalError } from './evaluate';
+import { tokenize, type SourceToken } from './tokens';
+
+export interface MacroDef {
+  name: string;
+  /** Parameter names; undefined for an object-like macro. */
+  params?: string[];
+  variadic?: boolean;
+  body: SourceToken[];
+  uri: string;
+  nameSpan: Span;
+  /** From '#' to the end of the last body token. */
+  span: Span;
+  line: number;
+}
+
+export interface ExpandLimits { maxTokens: number; maxDepth: number }
+export const DEFAULT_LIMITS: ExpandLimits = { maxTokens: 10_000, maxDepth: 200 };
+
+class Stop { constructor(readonly error: EvalError) {} }
+
+export function expandMacros(
+  input: SourceToken[],
+  lookup: (name: string) => MacroDef | undefined,
+  limits: ExpandLimits = DEFAULT_LIMITS,
+): SourceToken[] | EvalError {
+  let produced = 0;
+  const limit = (tok: SourceToken, what: string): never => {
+    throw new Stop({ err: `macro expansion ${what} (at '${tok.text}')`, code: Code.cExpansionLimit, tok });
+  };
+
+  const run = (tokens: SourceToken[], depth: number): SourceToken[] => {
+    if (depth > limits.maxDepth) limit(tokens[0], `nests deeper than ${limits.maxDepth}`);
+    const out: SourceToken[] = [];
+    const stack = tokens.slice().reverse();
+    while (stack.length) {
+      const t = stack.pop() as SourceToken;
+      const m = t.kind === 'ident' ? lookup(t.text) : undefined;
+      if (!m || t.hide?.has(m.name)) { out.push(t); continue; }
+      let args: SourceToken[][] | undefined;
+      if (m.params) {
+        if (stack[stack.length - 1]?.text !== '(') { out.push(t); continue; }
+        args = collectArgs(stack, m, t);
+      }
+      const hide = new Set(t.hide ?? []);
+      hide.add(m.name);
+      if (hide.size > limits.maxDepth) limit(t, `nests deeper than ${limits.maxDepth}`);
+      const replaced = substitute(m, args, (arg) => run(arg, depth + 1));
+      produced += replaced.length;
+      if (produced > limits.maxTokens) limit(t, `produced more than ${limits.maxTokens} tokens`);
+      for (let i = replaced.length - 1; i >= 0; i--) {
+        const r = replaced[i];
+        stack.push({ ...r, hide: r.hide && r.hide.size ? new Set([...r.hide, ...hide]) : hide });
+      }
+    }
+    return out;
+  };
+
+  try {
+    return run(input, 0);
+  } catch (e) {
+    if (e instanceof Stop) return e.error;
+    throw e;
+  }
+}
+
+/** Pops `( a, b )` off the stack (top = next token); commas inside nested parentheses stay in the argument. */
+function collectArgs(stack: SourceToken[], m: MacroDef, at: SourceToken): SourceToken[][] {
+  stack.pop();
+  const params = m.params as string[];
+  const args: SourceToken[][] = [[]];
+  let depth = 1;
+  for (;;) {
+    const u = stack.pop();
+    if (!u) throw new Stop({ err: `unterminated call of macro ${m.name}`, code: Code.cSyntax, tok: at });
+    if (u.kind === 'punct' && u.text === '(') depth++;
+    else if (u.kind === 'punct' && u.text === ')' && --depth === 0) break;
+    else if (u.kind === 'punct' && u.text === ',' && depth === 1 && !(m.variadic && args.length > params.length)) { args.push([]); continue; }
+    args[args.length - 1].push(u);
+  }
+  const wanted = params.length + (m.variadic ? 1 : 0);
+  if (params.length === 0 && !m.variadic && args.length === 1 && args[0].length === 0) return [];
+  if (m.variadic && args.length === params.length) args.push([]);
+  if (args.length !== wanted) {
+    throw new Stop({ err: `macro ${m.name} takes ${params.length} argument${params.length === 1 ? '' : 's'}, given ${args.length}`, code: Code.cSyntax, tok: at });
+  }
+  return args;
+}
+
+function substitute(m: MacroDef, args: SourceToken[][] | undefined, expand: (a: SourceToken[]) => SourceToken[]): SourceToken[] {
+  const params = m.params ?? [];
+  const argOf = (tok: SourceToken | undefined): SourceToken[] | undefined => {
+    if (!tok || tok.kind !== 'ident' || !args) return undefined;
+    if (tok.text === '__VA_ARGS__' && m.variadic) return args[params.length];
+    const i = params.indexOf(tok.text);
+    return i >= 0 ? args[i] : undefined;
+  };
+  const expanded = new Map<SourceToken[], SourceToken[]>();
+  const result: SourceToken[] = [];
+  const body = m.body;
+  for (let i = 0; i < body.length; i++) {
+    const b = body[i];
+    if (b.kind === 'punct' && b.text === '#' && m.params) {
+      throw new Stop({ err: `'#' (stringizing) in macro ${m.name} is not supported`, code: Code.cSyntax, tok: b });
+    }
+    if (b.kind === 'punct' && b.text === '##') {
+      const next = body[++i];
+      if (!next) throw new Stop({ err: `'##' at the end of macro ${m.name}`, code: Code.cSyntax, tok: b });
+      const right = argOf(next) ?? [next];
+      const left = result.pop();
+      if (!left || right.length === 0) { if (left) result.push(left); result.push(...right); continue; }
+      const pasted = tokenize(left.text + right[0].text);
+      if (pasted.length !== 1 || pasted[0].error) {
+        throw new Stop({ err: `pasting '${left.text}' and '${right[0].text}' in macro ${m.name} does not give one token`, code: Code.cSyntax, tok: b });
+      }
+      result.push({ ...left, kind: pasted[0].kind, text: pasted[0].text }, ...right.slice(1));
+      continue;
+    }
+    const arg = argOf(b);
+    if (!arg) { result.push(b); continue; }
+    // An argument next to ## is pasted as written; elsewhere it is fully expanded first (C11 6.10.3.1).
+    if (body[i + 1]?.text === '##') { result.push(...arg); continue; }
+    let full = expanded.get(arg);
+    if (!full) { full = expand(arg); expanded.set(arg, full); }
+    result.push(...full);
+  }
+  return result;
+}

@@ -1,0 +1,87 @@
+// Definitions in effect, layered: each branch of an #if whose condition cannot be decided gets its own
+// layer, and the layers merge at #endif. A name defined alike (or in one branch only) keeps that
+// definition; defined differently in two branches, it becomes a conflict that lookups report, never a guess.
+import type { CType } from './ctypes';
+import type { MacroDef } from './macros';
+import type { SourceToken } from './tokens';
+import type { Span } from '../types';
+
+export type Binding<T> = { kind: 'def'; def: T } | { kind: 'undef' } | { kind: 'conflict'; defs: T[] };
+
+/** An `enum` constant or a `const`/`constexpr` variable, kept unevaluated until looked up. */
+export interface Declaration {
+  name: string;
+  kind: 'enum' | 'const';
+  /** Declared type of a const variable; undefined for enum constants and `auto`. */
+  type?: CType;
+  /** Initialiser or explicit enum value; undefined for an implicit enum value. */
+  init?: SourceToken[];
+  /** Implicit enum value: the member before (undefined for the first, which is 0). */
+  previous?: string;
+  /** Set when an implicit enum value counts across members under #if. */
+  conditional?: string;
+  uri: string;
+  nameSpan: Span;
+  span: Span;
+  line: number;
+}
+
+const sameTokens = (a: SourceToken[] | undefined, b: SourceToken[] | undefined): boolean =>
+  (a ?? []).length === (b ?? []).length && (a ?? []).every((t, i) => t.text === (b as SourceToken[])[i].text);
+
+export const sameMacro = (a: MacroDef, b: MacroDef): boolean =>
+  a === b || ((a.params ?? []).join(',') === (b.params ?? []).join(',') && !!a.params === !!b.params && sameTokens(a.body, b.body));
+
+export const sameDeclaration = (a: Declaration, b: Declaration): boolean =>
+  a === b || (a.kind === b.kind && a.type?.name === b.type?.name && a.previous === b.previous && sameTokens(a.init, b.init) && !a.conditional && !b.conditional);
+
+export class Scope {
+  readonly macros = new Map<string, Binding<MacroDef>>();
+  readonly decls = new Map<string, Binding<Declaration>>();
+  constructor(readonly parent?: Scope) {}
+
+  macro(name: string): Binding<MacroDef> | undefined {
+    for (let s: Scope | undefined = this; s; s = s.parent) {
+      const b = s.macros.get(name);
+      if (b) return b;
+    }
+    return undefined;
+  }
+
+  decl(name: string): Binding<Declaration> | undefined {
+    for (let s: Scope | undefined = this; s; s = s.parent) {
+      const b = s.decls.get(name);
+      if (b) return b;
+    }
+    return undefined;
+  }
+}
+
+/** Merges branch layers into their base. `fallThrough`: no branch need be taken, so the base state is a path too. */
+export function mergeBranches(base: Scope, branches: Scope[], fallThrough: boolean): void {
+  mergeMap(base, branches, fallThrough, (s) => s.macros, (s, n) => s.macro(n), sameMacro);
+  mergeMap(base, branches, fallThrough, (s) => s.decls, (s, n) => s.decl(n), sameDeclaration);
+}
+
+function mergeMap<T>(
+  base: Scope, branches: Scope[], fallThrough: boolean,
+  own: (s: Scope) => Map<string, Binding<T>>, find: (s: Scope, name: string) => Binding<T> | undefined, same: (a: T, b: T) => boolean,
+): void {
+  const names = new Set<string>();
+  for (const b of branches) for (const n of own(b).keys()) names.add(n);
+  for (const name of names) {
+    const paths = branches.map((b) => find(b, name));
+    if (fallThrough) paths.push(find(base, name));
+    const defs: T[] = [];
+    const add = (d: T): void => { if (!defs.some((x) => same(x, d))) defs.push(d); };
+    let undef = false;
+    for (const p of paths) {
+      if (p?.kind === 'def') add(p.def);
+      else if (p?.kind === 'conflict') p.defs.forEach(add);
+      else if (p?.kind === 'undef') undef = true;
+    }
+    if (defs.length > 1) own(base).set(name, { kind: 'conflict', defs });
+    else if (defs.length === 1) own(base).set(name, { kind: 'def', def: defs[0] });
+    else if (undef) own(base).set(name, { kind: 'undef' });
+  }
+}

@@ -1,0 +1,200 @@
+// The constant table of one translation unit: names resolve lazily, once, and a cycle is a finding.
+// Lookups see the definitions in effect at the end of the file (after every #include and #undef).
+import { Code } from '../codes';
+import type { Finding, Span } from '../types';
+import { convert, fits, typeSystem, type CType, type DataModel, type Val } from './ctypes';
+import { evaluate, isError, type EvalError, type EvalResult } from './evaluate';
+import { expandMacros, type MacroDef } from './macros';
+import { parseExpression } from './parse';
+import { preprocess } from './preprocess';
+import type { Declaration } from './scope';
+import { tokenizeSource, type SourceToken } from './tokens';
+
+export interface CValue { value: bigint | number; type: string }
+
+export interface ConstantDefinition {
+  name: string;
+  uri: string;
+  /** 1-based. */
+  line: number;
+  /** The whole definition: `#define …` to its end, or the declarator with its initialiser. */
+  span: Span;
+  nameSpan: Span;
+  /** When the body is one literal (`#define TICK_TOP 255u`, `= 255;`): where it stands, for a quick fix. */
+  literal?: { span: Span; text: string };
+}
+
+export type ConstantResolution =
+  | { ok: true; value: CValue; definition: ConstantDefinition }
+  | { ok: false; message: string; code: string; at?: { uri: string; span: Span }; definition?: ConstantDefinition };
+
+export type ExpressionResult = { ok: true; value: CValue } | { ok: false; message: string; code: string; span?: Span };
+
+export interface ConstantTable {
+  lookup(name: string): ConstantResolution;
+  /** A C constant expression using the table's names; a failure's span is 0-based into `exprText` when it lies there. */
+  evaluate(exprText: string): ExpressionResult;
+  dependencies: string[];
+  findings: Array<Finding & { uri: string }>;
+}
+
+export interface ConstantTableOptions {
+  dataModel: DataModel;
+  includeDirs: string[];
+  workspaceRoots: string[];
+  read: (uri: string) => string | undefined;
+  realpath?: (uri: string) => string | undefined;
+  maxFileBytes?: number;
+  /** Plain char signed (x86, AVR gcc: the default) or unsigned (ARM). */
+  charSigned?: boolean;
+}
+
+const MAX_NAME_DEPTH = 100;
+const EXPRESSION_URI = '<expression>';
+
+export const toNumber = (v: CValue): number => Number(v.value);
+const toCValue = (x: Val): CValue => ({ value: x.v, type: x.t.name });
+
+function literalOf(body: SourceToken[]): ConstantDefinition['literal'] {
+  const inner = body.length === 3 && body[0].text === '(' && body[2].text === ')' ? [body[1]] : body;
+  if (inner.length !== 1 || (inner[0].kind !== 'number' && inner[0].kind !== 'char')) return undefined;
+  return { span: { start: inner[0].start, end: inner[0].end }, text: inner[0].text };
+}
+
+function definitionOf(d: MacroDef | Declaration): ConstantDefinition {
+  const body = 'body' in d ? d.body : d.init;
+  return { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal: body ? literalOf(body) : undefined };
+}
+
+const where = (d: MacroDef | Declaration): string => `${d.uri.split(/[\\/]/).pop()}:${d.line}`;
+
+export function buildConstantTable(entryUri: string, text: string, options: ConstantTableOptions): ConstantTable {
+  const ts = typeSystem(options.dataModel, options.charSigned ?? true);
+  const pre = preprocess(entryUri, text, { ...options, ts, maxFileBytes: options.maxFileBytes ?? 1_000_000 });
+  const { root } = pre;
+  const memo = new Map<string, ConstantResolution>();
+  const values = new Map<string, Val>();
+  const active: string[] = [];
+  const typeNamed = (n: string): CType | undefined => pre.typedefs.get(n) ?? ts.named.get(n);
+  const macro = (n: string): MacroDef | undefined => { const b = root.macro(n); return b?.kind === 'def' ? b.def : undefined; };
+
+  const fail = (e: EvalError): ConstantResolution => ({
+    ok: false, message: e.err, code: e.code, at: e.tok ? { uri: e.tok.uri, span: { start: e.tok.start, end: e.tok.end } } : undefined,
+  });
+
+  /** Expands, parses and evaluates tokens; identifiers left after expansion resolve through the table. */
+  const evalTokens = (tokens: SourceToken[]): EvalResult => {
+    const expanded = expandMacros(tokens, macro);
+    if (isError(expanded)) return expanded;
+    const node = parseExpression(expanded, typeNamed);
+    if ('error' in node) return { err: node.error, code: Code.cSyntax, tok: node.tok };
+    return evaluate(node, { ts, identifier });
+  };
+
+  const identifier = (tok: SourceToken): EvalResult => {
+    const name = tok.text;
+    const b = root.macro(name);
+    if (b?.kind === 'def' && tok.hide?.has(name)) {
+      return { err: `${name} refers to itself through macros (${[...tok.hide, name].join(' → ')})`, code: Code.cCycle, tok };
+    }
+    if (b?.kind === 'def' && b.def.params) return { err: `${name} is a function-like macro; it needs arguments`, code: Code.cSyntax, tok };
+    const r = lookup(name);
+    if (r.ok) return values.get(name) as Val;
+    return { err: r.message, code: r.code, tok: r.at ? { ...tok, uri: r.at.uri, start: r.at.span.start, end: r.at.span.end } : tok };
+  };
+
+  const finish = (name: string, x: EvalResult, def: MacroDef | Declaration): ConstantResolution => {
+    if (isError(x)) return { ...fail(x), definition: definitionOf(def) };
+    values.set(name, x);
+    return { ok: true, value: toCValue(x), definition: definitionOf(def) };
+  };
+
+  const resolveDeclaration = (d: Declaration): EvalResult => {
+    if (d.conditional) return { err: d.conditional, code: Code.cConditional };
+    if (d.kind === 'const') {
+      const x = evalTokens(d.init as SourceToken[]);
+      if (isError(x) || !d.type) return x;
+      const c = convert(x, d.type);
+      return typeof c === 'string' ? { err: `${d.name}: ${c}`, code: Code.cUndefined } : c;
+    }
+    let x: EvalResult;
+    if (d.init) x = evalTokens(d.init);
+    else if (d.previous === undefined) x = { v: 0n, t: ts.int };
+    else {
+      const p = lookup(d.previous);
+      if (!p.ok) return { err: p.message, code: p.code };
+      const before = values.get(d.previous) as Val;
+      x = { v: (before.v as bigint) + 1n, t: before.t };
+    }
+    if (isError(x)) return x;
+    if (typeof x.v !== 'bigint') return { err: `enum constant ${d.name} must be an integer, not ${x.t.name}`, code: Code.cSyntax };
+    // Enum constants have type int (C11 6.7.2.2p2); gcc keeps a wider type for values beyond it.
+    return fits(x.v, ts.int) ? { v: x.v, t: ts.int } : x;
+  };
+
+  const compute = (name: string): ConstantResolution => {
+    const mb = root.macro(name);
+    if (mb?.kind === 'conflict') {
+      return { ok: false, code: Code.cConditional, message: `${name} is defined differently under #if branches (${mb.defs.map(where).join(', ')}); the value depends on the build configuration` };
+    }
+    if (mb?.kind === 'def') {
+      const m = mb.def;
+      if (m.params) return { ok: false, code: Code.cSyntax, message: `${name} is a function-like macro; it needs arguments`, definition: definitionOf(m) };
+      const hide = new Set([name]);
+      return finish(name, evalTokens(m.body.map((t) => ({ ...t, hide }))), m);
+    }
+    const db = root.decl(name);
+    if (db?.kind === 'conflict') {
+      return { ok: false, code: Code.cConditional, message: `${name} is declared differently under #if branches (${db.defs.map(where).join(', ')}); the value depends on the build configuration` };
+    }
+    if (db?.kind === 'def') return finish(name, resolveDeclaration(db.def), db.def);
+    const undefNote = mb?.kind === 'undef' ? ' (it is #undef-ed)' : '';
+    return { ok: false, code: Code.cUnknown, message: `${name} is not defined in this file or the headers it includes${undefNote}` };
+  };
+
+  const lookup = (name: string): ConstantResolution => {
+    const known = memo.get(name);
+    if (known) return known;
+    const at = active.indexOf(name);
+    if (at >= 0) return { ok: false, code: Code.cCycle, message: `${name} depends on itself: ${[...active.slice(at), name].join(' → ')}` };
+    if (active.length >= MAX_NAME_DEPTH) return { ok: false, code: Code.cExpansionLimit, message: `constants refer to each other more than ${MAX_NAME_DEPTH} deep at ${name}` };
+    if (active.length === 0) warmEnumChain(name);
+    active.push(name);
+    let r: ConstantResolution;
+    try {
+      r = compute(name);
+    } catch (e) {
+      // A hostile chain of nested constants can still exhaust the stack; that is a finding, not a crash.
+      if (!(e instanceof RangeError)) throw e;
+      r = { ok: false, code: Code.cExpansionLimit, message: `${name} nests too deeply to evaluate` };
+    } finally { active.pop(); }
+    memo.set(name, r);
+    return r;
+  };
+
+  /** Resolves a long run of implicit enum values oldest first, so the recursion stays one member deep. */
+  const warmEnumChain = (name: string): void => {
+    const chain: string[] = [];
+    const seen = new Set<string>();
+    for (let n: string | undefined = name; n !== undefined && !memo.has(n) && !seen.has(n) && !root.macro(n);) {
+      const b = root.decl(n);
+      if (b?.kind !== 'def' || b.def.kind !== 'enum' || b.def.init || b.def.previous === undefined) break;
+      seen.add(n);
+      chain.push(n);
+      n = b.def.previous;
+    }
+    for (let i = chain.length - 1; i > 0; i--) lookup(chain[i]);
+  };
+
+  const evaluateText = (exprText: string): ExpressionResult => {
+    const tokens = tokenizeSource(exprText, EXPRESSION_URI).filter((t) => t.kind !== 'newline');
+    const x = evalTokens(tokens);
+    if (isError(x)) {
+      const span = x.tok?.uri === EXPRESSION_URI ? { start: x.tok.start, end: x.tok.end } : undefined;
+      return { ok: false, message: x.err, code: x.code, span };
+    }
+    return { ok: true, value: toCValue(x) };
+  };
+
+  return { lookup, evaluate: evaluateText, dependencies: pre.dependencies, findings: pre.findings };
+}

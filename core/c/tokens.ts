@@ -1,0 +1,135 @@
+// C tokenizer: one pass, offsets into the original text, never throws.
+// Comments count as white space (ISO C11 5.1.1.2 phase 3), so a newline inside /* */ does not end a directive.
+
+export type TokenKind = 'ident' | 'number' | 'char' | 'string' | 'punct' | 'newline' | 'other';
+
+export interface Token {
+  kind: TokenKind;
+  text: string;
+  /** 0-based offsets into the source text, half-open. */
+  start: number;
+  end: number;
+  /** Set when the token is malformed (unterminated literal or comment, stray character). */
+  error?: string;
+}
+
+// Longest first, so `<<=` wins over `<<` and `<`.
+const PUNCTUATORS = [
+  '...', '<<=', '>>=',
+  '->', '++', '--', '<<', '>>', '<=', '>=', '==', '!=', '&&', '||', '*=', '/=', '%=', '+=', '-=', '&=', '^=', '|=', '##',
+  '[', ']', '(', ')', '{', '}', '.', '&', '*', '+', '-', '~', '!', '/', '%', '<', '>', '^', '|', '?', ':', ';', '=', ',', '#',
+];
+
+const isIdentStart = (c: string): boolean => /[A-Za-z_$]/.test(c);
+const isIdentPart = (c: string): boolean => /[A-Za-z0-9_$]/.test(c);
+const isDigit = (c: string): boolean => c >= '0' && c <= '9';
+
+/** Length of a backslash-newline splice at `i` (0 when there is none). */
+function spliceLength(text: string, i: number): number {
+  if (text[i] !== '\\') return 0;
+  if (text[i + 1] === '\n') return 2;
+  if (text[i + 1] === '\r' && text[i + 2] === '\n') return 3;
+  return 0;
+}
+
+export function tokenize(text: string): Token[] {
+  const tokens: Token[] = [];
+  const n = text.length;
+  let i = 0;
+  while (i < n) {
+    const c = text[i];
+    const splice = spliceLength(text, i);
+    if (splice) { i += splice; continue; }
+    if (c === '\n') { tokens.push({ kind: 'newline', text: '\n', start: i, end: i + 1 }); i++; continue; }
+    if (c === ' ' || c === '\t' || c === '\r' || c === '\f' || c === '\v') { i++; continue; }
+    if (c === '/' && text[i + 1] === '/') {
+      // A line comment ends at the newline, unless a splice continues it (C11 5.1.1.2 phase 2).
+      i += 2;
+      while (i < n && text[i] !== '\n') i += spliceLength(text, i) || 1;
+      continue;
+    }
+    if (c === '/' && text[i + 1] === '*') {
+      const close = text.indexOf('*/', i + 2);
+      if (close < 0) {
+        tokens.push({ kind: 'other', text: text.slice(i, i + 2), start: i, end: n, error: 'unterminated comment' });
+        i = n;
+      } else i = close + 2;
+      continue;
+    }
+    if (isIdentStart(c)) {
+      let j = i + 1;
+      while (j < n && isIdentPart(text[j])) j++;
+      const word = text.slice(i, j);
+      if ((text[j] === "'" || text[j] === '"') && (word === 'L' || word === 'u' || word === 'U' || word === 'u8')) {
+        j = quoted(text, j, text[j], tokens, i);
+        i = j;
+        continue;
+      }
+      tokens.push({ kind: 'ident', text: word, start: i, end: j });
+      i = j;
+      continue;
+    }
+    if (isDigit(c) || (c === '.' && isDigit(text[i + 1] ?? ''))) {
+      // A preprocessing number (C11 6.4.8): digits, letters, dots, and e+ e- p+ p- signs.
+      let j = i + 1;
+      while (j < n) {
+        const d = text[j];
+        if ((d === '+' || d === '-') && /[eEpP]/.test(text[j - 1])) { j++; continue; }
+        if (isIdentPart(d) || d === '.') { j++; continue; }
+        break;
+      }
+      tokens.push({ kind: 'number', text: text.slice(i, j), start: i, end: j });
+      i = j;
+      continue;
+    }
+    if (c === "'" || c === '"') { i = quoted(text, i, c, tokens, i); continue; }
+    const p = PUNCTUATORS.find((q) => text.startsWith(q, i));
+    if (p) { tokens.push({ kind: 'punct', text: p, start: i, end: i + p.length }); i += p.length; continue; }
+    tokens.push({ kind: 'other', text: c, start: i, end: i + 1, error: `unexpected character '${c}'` });
+    i++;
+  }
+  return tokens;
+}
+
+/** Reads a character or string literal whose quote is at `q`; the token starts at `start` (a prefix may precede). */
+function quoted(text: string, q: number, quote: string, tokens: Token[], start: number): number {
+  let j = q + 1;
+  while (j < text.length && text[j] !== quote && text[j] !== '\n') {
+    if (text[j] === '\\') j += spliceLength(text, j) || 2;
+    else j++;
+  }
+  const kind = quote === "'" ? 'char' : 'string';
+  if (text[j] === quote) {
+    tokens.push({ kind, text: text.slice(start, j + 1), start, end: j + 1 });
+    return j + 1;
+  }
+  const end = Math.min(j, text.length);
+  tokens.push({ kind, text: text.slice(start, end), start, end, error: `unterminated ${kind === 'char' ? 'character' : 'string'} literal` });
+  return end;
+}
+
+/** 1-based line numbers from offsets, by binary search over line starts. */
+export function lineIndex(text: string): (offset: number) => number {
+  const starts = [0];
+  for (let i = 0; i < text.length; i++) if (text.charCodeAt(i) === 10) starts.push(i + 1);
+  return (offset) => {
+    let lo = 0;
+    let hi = starts.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (starts[mid] <= offset) lo = mid;
+      else hi = mid - 1;
+    }
+    return lo + 1;
+  };
+}
+
+/** A token with the file it came from; `hide` is the set of macros it was produced by (C11 6.10.3.4p2). */
+export interface SourceToken extends Token {
+  uri: string;
+  hide?: ReadonlySet<string>;
+}
+
+export function tokenizeSource(text: string, uri: string): SourceToken[] {
+  return tokenize(text).map((t) => ({ ...t, uri }));
+}
