@@ -1,32 +1,13 @@
 // The one seam between the editor glue and the core engine: every feature imports the engine from here.
-//
-// TEMPORARY until core/analyze.ts lands: this module answers every document with no blocks. The lead
-// points it at the core by replacing the three bodies below with re-exports, e.g.
-//   export { analyzeDocument } from '../core/analyze';
-//   export { formatHeadline, formatResult } from '../core/format';
-//   export { circuitNames } from '../core/circuits/registry';
-// No timing math belongs in extension/.
-import type { AnalyzeOptions } from '../core/analyze/context';
-import type { BlockAnalysis, DocumentAnalysis, TextDocumentLike } from '../core/types';
+// No timing math belongs in extension/; this file only re-exports core functions.
+import { circuits } from '../core/circuits/registry';
 
-export type { AnalyzeOptions };
+export { analyzeDocument, type AnalyzeOptions } from '../core/analyze';
+export { headline as formatHeadline } from '../core/present/values';
+export { hoverMarkdown as blockHoverMarkdown } from '../core/present/hover';
+export { waveformFor } from '../core/present/waveform';
 
-export function analyzeDocument(doc: TextDocumentLike, _options: AnalyzeOptions): DocumentAnalysis {
-  return { uri: doc.uri, blocks: [], findings: [], dependencies: [] };
-}
-
-/** One line of headline numbers for the code lens. */
-export function formatHeadline(block: BlockAnalysis): string {
-  const shown = Object.entries(block.values).slice(0, 3);
-  return shown.length === 0 ? block.name : shown.map(([key, value]) => `${key} ${formatResult(key, value)}`).join(' · ');
-}
-
-/** A result in engineering notation with its unit. */
-export function formatResult(_key: string, value: number): string {
-  return value.toPrecision(4);
-}
-
-/** Circuit keys for the insert command, from the core's registry once it lands. */
+/** Circuit ids for the insert command, from the core's registry. */
 export function circuitNames(): string[] {
-  return [];
+  return circuits.map((model) => model.id);
 }

@@ -9,7 +9,7 @@ export function registerHover({ store }: { store: AnalysisStore }): vscode.Dispo
   return vscode.languages.registerHoverProvider(timingSelector, {
     provideHover(doc, position) {
       const block = store.blockAt(doc, position);
-      return block ? new vscode.Hover(hoverMarkdown(block), spanToRange(doc, block.block.span)) : undefined;
+      return block ? new vscode.Hover(hoverMarkdown(block, doc), spanToRange(doc, block.block.span)) : undefined;
     },
   });
 }

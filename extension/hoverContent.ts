@@ -1,38 +1,12 @@
-// The hover's text for one block: every result, its spread, solved parts, where constants came from,
-// and the block's findings. Numbers are formatted by the core; nothing is computed here.
-import * as path from 'node:path';
+// The hover's Markdown comes from the core (the CLI and preview share it); here it only becomes an
+// editor MarkdownString with identifier locations shown relative to the workspace folder.
 import * as vscode from 'vscode';
 import type { BlockAnalysis } from '../core/types';
-import { formatResult } from './engine';
+import { blockHoverMarkdown } from './engine';
 
-export function hoverMarkdown(block: BlockAnalysis): vscode.MarkdownString {
-  const md = new vscode.MarkdownString(undefined, true);
-  md.appendMarkdown(`**${escape(block.name)}**${block.circuit ? ` — \`${escape(block.circuit)}\`` : ''}\n\n`);
-
-  const results = Object.entries(block.values);
-  if (results.length > 0) {
-    md.appendMarkdown('| result | value | spread |\n|---|---|---|\n');
-    for (const [key, value] of results) {
-      const spread = block.spread?.[key];
-      const range = spread ? `${formatResult(key, spread.min)} … ${formatResult(key, spread.max)}` : '';
-      md.appendMarkdown(`| ${escape(key)} | ${escape(formatResult(key, value))} | ${escape(range)} |\n`);
-    }
-    md.appendMarkdown('\n');
-  }
-
-  for (const [key, part] of Object.entries(block.solved ?? {})) {
-    const exact = part.exact === undefined ? '' : ` (exact ${formatResult(key, part.exact)})`;
-    md.appendMarkdown(`- solved \`${escape(key)}\` = ${escape(formatResult(key, part.value))}${part.series ? ` ${part.series}` : ''}${exact}\n`);
-  }
-  for (const id of block.identifiers) {
-    md.appendMarkdown(`- \`${escape(id.name)}\` = ${id.value} from ${escape(path.basename(id.uri))}:${id.line}\n`);
-  }
-  for (const finding of block.findings) {
-    md.appendMarkdown(`- ${finding.severity}: ${escape(finding.message)}\n`);
-  }
-  return md;
-}
-
-function escape(text: string): string {
-  return text.replace(/[\\`*_{}[\]()#+\-!|<>]/g, (ch) => `\\${ch}`);
+export function hoverMarkdown(block: BlockAnalysis, doc: vscode.TextDocument): vscode.MarkdownString {
+  const folder = vscode.workspace.getWorkspaceFolder(doc.uri);
+  const relativeTo = folder?.uri.scheme === 'file' ? folder.uri.fsPath : undefined;
+  // The core escapes all document text; no HTML and no command links are enabled.
+  return new vscode.MarkdownString(blockHoverMarkdown(block, { relativeTo }), true);
 }
