@@ -231,6 +231,8 @@ describe('renderWaveformSvg', () => {
       duration: 0.002,
     };
     assert.equal(lanes(timer), 2);
+    const texts = all(parseXml(renderWaveformSvg(timer, { title: 't' })), 'text').map((t) => t.text);
+    assert.ok(texts.includes('250') && texts.includes('0.2') && texts.includes('reload 249'), texts.join('|'));
   });
 
   it('draws a legend entry per trace', () => {
