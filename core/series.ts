@@ -73,7 +73,7 @@ export function nearestInSeries(x: number, name: SeriesName): number {
   return best;
 }
 
-/** Standard values with below ≤ x ≤ above (both equal x when x is itself standard); NaN for x ≤ 0. */
+/** Standard values with below ≤ x ≤ above (both equal x when x is standard to 1e-12 relative); NaN for x ≤ 0. */
 export function neighboursInSeries(x: number, name: SeriesName): { below: number; above: number } {
   if (!(x > 0) || !Number.isFinite(x)) return { below: NaN, above: NaN };
   const slack = x * 1e-12;
