@@ -38,6 +38,8 @@ export function formatNumber(x: number, sig = 4): string {
  */
 export function formatQuantity(x: number, unit: string, sig = 4): string {
   if (unit === '%') return formatPercent(x, sig);
+  // A compound dimension has no symbol of ours; show the number alone.
+  if (unit === 'other') unit = '';
   if (!Number.isFinite(x)) return NOT_A_NUMBER;
   const s = clampSig(sig);
   const separator = unit === '' ? '' : ' ';

@@ -89,10 +89,14 @@ export function lex(text: string, offset: number): LexResult {
     const after = bare ? spacedUnit(text.slice(start, end), end) : { end };
     const finalDim = after.dim ?? dim;
     const finalExponent = exponent + (after.exponent ?? 0);
-    tokens.push({
-      t: 'num', value: Number(`${mantissa}e${finalExponent}`), dim: finalDim,
-      span: span(start, after.end), text: text.slice(start, after.end),
-    });
+    const value = Number(`${mantissa}e${finalExponent}`);
+    const written = text.slice(start, after.end);
+    // Beyond the range of a double the number would silently become Infinity or 0.
+    if (!Number.isFinite(value) || (value === 0 && /[1-9]/.test(mantissa))) {
+      findings.push(error(Code.valueSyntax, `\`${written.length > 24 ? `${written.slice(0, 24)}…` : written}\`: number out of range`, span(start, after.end)));
+    } else {
+      tokens.push({ t: 'num', value, dim: finalDim, span: span(start, after.end), text: written });
+    }
     i = after.end;
   };
 

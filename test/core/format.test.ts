@@ -28,6 +28,7 @@ describe('formatQuantity', () => {
     assert.equal(formatQuantity(-0.0025, 'V'), '\u22122.5 mV');
     assert.equal(formatQuantity(47000, ''), '47k');
     assert.equal(formatQuantity(1e-20, 's'), '1e-20 s');
+    assert.equal(formatQuantity(2500, 'other'), '2.5k');
   });
 
   it('non-finite values print as a dash', () => {

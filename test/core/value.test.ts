@@ -171,6 +171,14 @@ describe('value errors', () => {
     assert.deepEqual({ ...onlyFinding('2 ^ 3'), message: '' }, { code: Code.valueSyntax, message: '', start: 2, end: 3 });
   });
 
+  it('numbers beyond the range of a double', () => {
+    // IEEE 754 binary64 overflows above about 1.8e308 and underflows below about 4.9e-324.
+    assert.deepEqual(onlyFinding('1e999'), { code: Code.valueSyntax, message: '`1e999`: number out of range', start: 0, end: 5 });
+    assert.equal(onlyFinding('1e-999 s').message, '`1e-999 s`: number out of range');
+    assert.equal(onlyFinding('9'.repeat(400)).code, Code.valueSyntax);
+    assert.deepEqual(number('0.0e5'), { value: 0, dim: '' });
+  });
+
   it('an empty value', () => {
     assert.deepEqual(onlyFinding('   '), { code: Code.valueSyntax, message: 'empty value: write a number, a name, or `?`', start: 0, end: 3 });
     assert.equal(onlyFinding('±5%').message, 'a tolerance needs a value before it, e.g. `47k ±1%`');
