@@ -1,7 +1,7 @@
 // Shared plumbing for the real-editor runs: a loopback-only code-server with fresh state, and a headless
 // Debian chromium that may talk to nothing but that server. Both are stopped by their own handles.
 import { spawn } from 'node:child_process';
-import { mkdirSync, rmSync } from 'node:fs';
+import { mkdirSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import http from 'node:http';
 import net from 'node:net';
 import path from 'node:path';
@@ -44,12 +44,27 @@ export function runFolder(label) {
   return dir;
 }
 
+// Tests edit demo files in memory only. VS Code saves files touched by an extension's WorkspaceEdit
+// unless files.refactoring.autoSave is off, so the run's user settings turn every save path off.
+const userSettings = {
+  'files.refactoring.autoSave': false,
+  'files.autoSave': 'off',
+  'files.hotExit': 'off',
+  'workbench.startupEditor': 'none',
+  'security.workspace.trust.enabled': false,
+  'extensions.autoCheckUpdates': false,
+  'extensions.autoUpdate': false,
+  'telemetry.telemetryLevel': 'off',
+};
+
 export async function startCodeServer(runDir, extraEnv = {}) {
   const entry = prepareEditorHost();
   const port = await freePort();
   const userData = path.join(runDir, 'user-data');
   const extensions = path.join(runDir, 'extensions');
   mkdirSync(extensions, { recursive: true });
+  mkdirSync(path.join(userData, 'User'), { recursive: true });
+  writeFileSync(path.join(userData, 'User', 'settings.json'), JSON.stringify(userSettings, null, 2));
   const env = {
     ...process.env,
     ...extraEnv,
@@ -135,4 +150,36 @@ export async function stopAll({ browser, server, runDir }) {
     });
   }
   if (runDir) rmSync(runDir, { recursive: true, force: true });
+}
+
+/** Contents of every file under `folders`, to prove afterwards that a run left them as they were. */
+export function snapshotFiles(folders) {
+  const files = new Map();
+  const walk = (dir) => {
+    for (const entry of readdirSync(dir, { withFileTypes: true })) {
+      const full = path.join(dir, entry.name);
+      if (entry.isDirectory()) walk(full);
+      else if (entry.isFile()) files.set(full, readFileSync(full));
+    }
+  };
+  for (const folder of folders) walk(folder);
+  return files;
+}
+
+/** Puts back any file a run changed or removed; returns the paths it had to restore. */
+export function restoreChanged(snapshot) {
+  const restored = [];
+  for (const [file, content] of snapshot) {
+    let now;
+    try {
+      now = readFileSync(file);
+    } catch {
+      now = undefined;
+    }
+    if (!now || !now.equals(content)) {
+      writeFileSync(file, content);
+      restored.push(file);
+    }
+  }
+  return restored;
 }

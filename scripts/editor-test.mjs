@@ -4,7 +4,7 @@
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import { format } from 'node:util';
-import { launchBrowser, log, runFolder, startCodeServer, stopAll, workbenchUrl } from './editor-host.mjs';
+import { launchBrowser, log, restoreChanged, runFolder, snapshotFiles, startCodeServer, stopAll, workbenchUrl } from './editor-host.mjs';
 import { projectRoot } from './prepare-editor-host.mjs';
 
 const RUN_LIMIT_MS = 6 * 60_000;
@@ -18,6 +18,8 @@ async function main() {
   }
   const started = Date.now();
   const run = { runDir: runFolder('suite') };
+  const guarded = snapshotFiles([workspace, path.join(projectRoot, 'test', 'editor', 'fixtures')]);
+  let code = 1;
   let limitTimer;
   const stopOnSignal = () => void stopAll(run).then(() => process.exit(130));
   process.once('SIGINT', stopOnSignal);
@@ -41,16 +43,21 @@ async function main() {
       }, RUN_LIMIT_MS);
     });
     await page.goto(workbenchUrl(run.server.port, { folder: workspace, testsPath }));
-    const code = await Promise.race([exitCode, limit]);
+    code = await Promise.race([exitCode, limit]);
     log(`editor suite exit code ${code} after ${((Date.now() - started) / 1000).toFixed(1)} s`);
-    return code;
   } catch (error) {
     log(error instanceof Error ? error.message : String(error));
-    return 1;
+    code = 1;
   } finally {
     clearTimeout(limitTimer);
     await stopAll(run);
   }
+  const restored = restoreChanged(guarded);
+  if (restored.length > 0) {
+    log(`the suite wrote to workspace files (restored): ${restored.map((f) => path.relative(projectRoot, f)).join(', ')}`);
+    return code === 0 ? 1 : code;
+  }
+  return code;
 }
 
 process.exitCode = await main();

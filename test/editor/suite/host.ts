@@ -26,3 +26,43 @@ export async function eventually<T>(probe: () => Promise<T | undefined> | T | un
     await new Promise((resolve) => setTimeout(resolve, 100));
   }
 }
+
+/** A file of the demo workspace (the folder the host opens). */
+export async function demoUri(relative: string): Promise<vscode.Uri> {
+  const extension = await activeExtension();
+  return vscode.Uri.file(path.join(extension.extensionPath, 'demo', relative));
+}
+
+export async function showDemo(relative: string): Promise<vscode.TextEditor> {
+  const doc = await vscode.workspace.openTextDocument(await demoUri(relative));
+  return vscode.window.showTextDocument(doc, { preview: false });
+}
+
+/** Drops unsaved test edits so the demo files on disk are never changed. */
+export async function revert(uri: vscode.Uri): Promise<void> {
+  const doc = await vscode.workspace.openTextDocument(uri);
+  if (!doc.isDirty) return;
+  await vscode.window.showTextDocument(doc, { preview: false });
+  await vscode.commands.executeCommand('workbench.action.files.revert');
+}
+
+export async function lensTitles(uri: vscode.Uri): Promise<string[]> {
+  // The lens query needs a loaded model ("Illegal argument" otherwise).
+  await vscode.workspace.openTextDocument(uri);
+  const lenses = (await vscode.commands.executeCommand<vscode.CodeLens[]>('vscode.executeCodeLensProvider', uri)) ?? [];
+  return lenses.map((lens) => lens.command?.title ?? '');
+}
+
+/** Replaces the first occurrence of `from` in the document with `to` (unsaved). */
+export async function replaceText(uri: vscode.Uri, from: string, to: string): Promise<void> {
+  const doc = await vscode.workspace.openTextDocument(uri);
+  const at = doc.getText().indexOf(from);
+  if (at < 0) throw new Error(`${from} not found in ${uri.fsPath}`);
+  const edit = new vscode.WorkspaceEdit();
+  edit.replace(uri, new vscode.Range(doc.positionAt(at), doc.positionAt(at + from.length)), to);
+  if (!(await vscode.workspace.applyEdit(edit))) throw new Error('edit was refused');
+}
+
+export function tickmarkDiagnostics(uri: vscode.Uri, code?: string): vscode.Diagnostic[] {
+  return vscode.languages.getDiagnostics(uri).filter((d) => d.source === 'tickmark' && (code === undefined || d.code === code));
+}

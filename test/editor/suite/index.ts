@@ -2,6 +2,10 @@
 // @vscode/test-electron elsewhere). All tests are registered first, then run once.
 import Mocha from 'mocha';
 import { activationTests } from './activation.test';
+import { diagnosticsTests } from './diagnostics.test';
+import { hoverTests } from './hover.test';
+import { lensTests } from './lens.test';
+import { panelTests } from './panel.test';
 import { rangeTests } from './ranges.test';
 
 export function run(): Promise<void> {
@@ -9,6 +13,10 @@ export function run(): Promise<void> {
   mocha.suite.emit('pre-require', globalThis, 'tickmark-editor-suite', mocha);
   activationTests();
   rangeTests();
+  lensTests();
+  hoverTests();
+  diagnosticsTests();
+  panelTests();
   return new Promise((resolve, reject) => {
     mocha.run((failures) => (failures > 0 ? reject(new Error(`${failures} editor test(s) failed`)) : resolve()));
   });
