@@ -1,0 +1,127 @@
+// Waveforms and the RC segment law: start discharged, exact corners at transitions, levels named.
+import { strict as assert } from 'assert';
+import { circuitById } from '../../core/circuits/registry';
+import { withDefaults, type GivenInput } from '../../core/circuits/defaults';
+import type { CircuitModel, Trace } from '../../core/circuits/model';
+import { rcReaches, rcSegmentTime, rcVoltageAt } from '../../core/rc';
+
+function wave(id: string, given: GivenInput, cycles = 3) {
+  const model = circuitById(id) as CircuitModel;
+  const input = withDefaults(model, given);
+  assert.deepEqual(model.validate(input), []);
+  return { wave: model.waveform!(input, cycles), results: model.compute(input) };
+}
+
+function trace(traces: Trace[], name: string): Trace {
+  const found = traces.find((t) => t.name === name);
+  assert.ok(found, `no ${name} trace`);
+  return found;
+}
+
+/** Times at which a step trace changes level (two points at one time). */
+function edgesOf(t: Trace): number[] {
+  const times: number[] = [];
+  for (let i = 1; i < t.points.length; i++) if (t.points[i][0] === t.points[i - 1][0] && t.points[i][1] !== t.points[i - 1][1]) times.push(t.points[i][0]);
+  return times;
+}
+
+describe('RC segment law', () => {
+  it('is τ·ln((vInf − v0)/(vInf − v1)) and inverts rcVoltageAt', () => {
+    // Standard RC charging law, common practice: one τ from 0 toward 1 V reaches 1 − e^−1.
+    assert.ok(Math.abs(rcSegmentTime(0, 1 - Math.exp(-1), 1, 2e-3) - 2e-3) < 1e-15);
+    for (const [v0, v1, vInf] of [[0, 2, 5], [4, 1, 0], [-3, 2, 6], [2.5, -1, -5]]) {
+      const t = rcSegmentTime(v0, v1, vInf, 1e-3);
+      assert.ok(Math.abs(rcVoltageAt(v0, vInf, 1e-3, t) - v1) < 1e-12);
+    }
+  });
+
+  it('says clearly when a level is never reached', () => {
+    assert.equal(rcSegmentTime(0, 5, 5, 1), Infinity);
+    assert.equal(rcSegmentTime(0, 6, 5, 1), Infinity);
+    assert.equal(rcSegmentTime(2, 1, 5, 1), Infinity);
+    assert.equal(rcSegmentTime(1, 2, 1, 1), Infinity);
+    assert.equal(rcSegmentTime(0, 1, 5, 0), Infinity);
+    assert.equal(rcSegmentTime(0, 1, 5, Number.NaN), Infinity);
+    assert.equal(rcSegmentTime(1, 1, 5, 1), 0);
+    assert.equal(rcReaches(0, 4.99, 5), true);
+    assert.equal(rcReaches(0, -1, 5), false);
+  });
+});
+
+describe('waveforms', () => {
+  it('schmitt-rc starts discharged, charges to VT+, then swings between the thresholds', () => {
+    const { wave: w, results } = wave('schmitt-rc', { values: { supply: 3.3, 'vt+': 2.0, 'vt-': 1.1, r: 47e3, c: 100e-9 } });
+    const cap = trace(w.traces, 'capacitor');
+    const out = trace(w.traces, 'output');
+    assert.deepEqual(cap.points[0], [0, 0]);
+    assert.equal(out.points[0][1], 3.3);
+    assert.deepEqual(w.levels.map((l) => l.label), ['VT+', 'VT−']);
+    const edges = edgesOf(out);
+    assert.equal(edges.length, 6);
+    assert.ok(Math.abs(edges[0] - results.startup) < 1e-15);
+    assert.ok(Math.abs(edges[2] - edges[0] - results.period) < 1e-12);
+    assert.ok(Math.abs(w.duration - (results.startup + 3 * results.period)) < 1e-12);
+    // The capacitor sits exactly on a threshold at every output edge.
+    for (const t of edges) {
+      const atEdge = cap.points.filter((p) => Math.abs(p[0] - t) < 1e-15).map((p) => p[1]);
+      assert.ok(atEdge.some((v) => Math.abs(v - 2.0) < 1e-9 || Math.abs(v - 1.1) < 1e-9), `edge at ${t}: ${atEdge}`);
+    }
+    // About 50 points per exponential segment: startup + 6 halves.
+    assert.ok(cap.points.length >= 7 * 50 && cap.points.length <= 7 * 60);
+  });
+
+  it('with tpd the capacitor overshoots the threshold before the output falls', () => {
+    const { wave: w } = wave('schmitt-rc', { values: { supply: 5, 'vt+': 3, 'vt-': 2, r: 1e3, c: 1e-9, tpd: 100e-9 } });
+    const peak = Math.max(...trace(w.traces, 'capacitor').points.map((p) => p[1]));
+    assert.ok(Math.abs(peak - rcVoltageAt(3, 5, 1e-6, 100e-9)) < 1e-9, String(peak));
+  });
+
+  it('555-astable levels are labelled by their share of the supply at the default control', () => {
+    const { wave: w } = wave('555-astable', { values: { supply: 9, ra: 1e3, rb: 10e3, c: 10e-9 } });
+    assert.deepEqual(w.levels, [{ label: '2/3 supply', value: 6 }, { label: '1/3 supply', value: 3 }]);
+    const { wave: moved } = wave('555-astable', { values: { supply: 9, ra: 1e3, rb: 10e3, c: 10e-9, control: 4 } });
+    assert.deepEqual(moved.levels.map((l) => l.label), ['control', 'control/2']);
+  });
+
+  it('inverter-rc timing node jumps by a full supply at each edge', () => {
+    const { wave: w } = wave('inverter-rc', { values: { supply: 5, r: 10e3, c: 1e-9 } }, 2);
+    const node = trace(w.traces, 'capacitor').points;
+    const values = node.map((p) => p[1]);
+    // From the DESIGN.md note: the node swings to threshold ± supply (2.5 ± 5 V).
+    assert.ok(Math.abs(Math.max(...values) - 7.5) < 1e-9);
+    assert.ok(Math.abs(Math.min(...values) - -2.5) < 1e-9);
+  });
+
+  it('timer draws the counter and the PWM output', () => {
+    const { wave: w, results } = wave('timer', { values: { clock: 1e6, prescaler: 1, reload: 9, compare: 3 } }, 2);
+    const counter = trace(w.traces, 'counter');
+    assert.equal(Math.max(...counter.points.map((p) => p[1])), 9);
+    const out = trace(w.traces, 'output');
+    const high = out.points.filter((p, i) => i > 0 && p[1] === 1 && out.points[i - 1][1] === 1);
+    assert.ok(high.length > 0);
+    assert.ok(Math.abs(w.duration - 2 * results.period) < 1e-15);
+    assert.deepEqual(w.levels.map((l) => l.label), ['reload', 'compare']);
+  });
+
+  it('rc-delay draws one charge curve through its `to` level', () => {
+    const { wave: w, results } = wave('rc-delay', { values: { r: 10e3, c: 1e-6, to: 2, supply: 3.3 } });
+    const cap = trace(w.traces, 'capacitor').points;
+    assert.deepEqual(cap[0], [0, 0]);
+    const atTime = cap.find((p) => Math.abs(p[0] - results.time) < 1e-15);
+    assert.ok(atTime && Math.abs(atTime[1] - 2) < 1e-9);
+    assert.deepEqual(w.levels, [{ label: 'to', value: 2 }]);
+  });
+
+  it('ring draws a square wave of the computed period', () => {
+    const { wave: w, results } = wave('ring', { values: { stages: 3, tpd: 1e-9 } }, 4);
+    const edges = edgesOf(trace(w.traces, 'output'));
+    assert.ok(Math.abs(edges[2] - edges[0] - results.period) < 1e-18);
+  });
+
+  it('asks for absurd cycle counts without hanging', () => {
+    const { wave: w } = wave('schmitt-rc', { values: { supply: 3.3, 'vt+': 2.0, 'vt-': 1.1, r: 47e3, c: 100e-9 } }, 1e12);
+    assert.ok(trace(w.traces, 'capacitor').points.length < 100_000);
+    const { wave: none } = wave('schmitt-rc', { values: { supply: 3.3, 'vt+': 2.0, 'vt-': 1.1, r: 47e3, c: 100e-9 } }, Number.NaN);
+    assert.ok(none.duration > 0);
+  });
+});
