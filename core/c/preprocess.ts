@@ -189,7 +189,8 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     const found = resolveInclude(uri, spelled, options);
     if (found.kind === 'outside') { report(target, Code.cInclude, `"${spelled}" resolves outside the workspace (${found.uri}); not read`); return; }
     if (found.kind === 'missing') { report(target, Code.cInclude, `cannot find "${spelled}" (looked in ${found.looked.join(', ') || 'no folder inside the workspace'})`, 'info'); return; }
-    if (stack.includes(found.uri)) { report(target, Code.cInclude, `"${spelled}" includes itself (${[...stack, found.uri].join(' → ')}); not followed again`); return; }
+    // One re-entry is allowed so an include guard can end it quietly; a second means the cycle is unguarded.
+    if (stack.filter((u) => u === found.uri).length >= 2) { report(target, Code.cInclude, `"${spelled}" includes itself (${[...stack, found.uri].join(' → ')}); not followed again`); return; }
     if (stack.length >= MAX_INCLUDE_DEPTH || ++includes > MAX_INCLUDES) { report(target, Code.cExpansionLimit, `too many nested or repeated includes; "${spelled}" not read`); return; }
     if (found.text.length > options.maxFileBytes) { report(target, Code.fileTooLarge, `"${spelled}" is larger than ${options.maxFileBytes} bytes; not read`); return; }
     processFile(found.uri, found.text, [...stack, found.uri]);
