@@ -4,6 +4,7 @@ import { create, UnitDependencies, multiplyScalarDependencies, divideScalarDepen
 import type { Dim, Finding, Span } from '../types';
 import { Code } from '../codes';
 import type { ValueNode } from './ast';
+import { shown } from './lexer';
 
 // A restricted instance: the Unit class and the scalar arithmetic it needs, no parser or evaluator.
 const math = create({ UnitDependencies, multiplyScalarDependencies, divideScalarDependencies });
@@ -103,7 +104,7 @@ function walk(node: ValueNode, lookup: (name: string) => Dim | undefined): State
     case 'ident': {
       const dim = lookup(node.name);
       if (dim === undefined) {
-        throw new Mismatch({ severity: 'error', code: Code.identifierUnknown, message: `unknown name \`${node.name}\``, span: node.span });
+        throw new Mismatch({ severity: 'error', code: Code.identifierUnknown, message: `unknown name \`${shown(node.name)}\``, span: node.span });
       }
       return stateOf(dim);
     }

@@ -25,6 +25,11 @@ const isIdentChar = (c: string): boolean => isLetter(c) || isDigit(c);
 const isUnitChar = (c: string): boolean => isIdentChar(c) || '\u00b5\u03bc\u03a9\u2126%'.includes(c);
 export const isSpace = (c: string): boolean => c === ' ' || c === '\t' || c === '\u00a0' || c === '\u202f' || c === '\r' || c === '\n';
 
+/** Text quoted in a message, shortened so a pasted megabyte does not end up in the Problems list. */
+export function shown(text: string): string {
+  return text.length > 24 ? `${text.slice(0, 24)}…` : text;
+}
+
 export function error(code: string, message: string, span: Span): Finding {
   return { severity: 'error', code, message, span };
 }
@@ -63,12 +68,13 @@ export function lex(text: string, offset: number): LexResult {
   let i = 0;
 
   /** Reads a unit standing after spaces (`47 kΩ`, `5 %`); returns the new end or `end` unchanged. */
-  const spacedUnit = (numberText: string, end: number): { end: number; dim?: Dim; exponent?: number } => {
+  const spacedUnit = (written: string, end: number): { end: number; dim?: Dim; exponent?: number } => {
     const wordStart = runEnd(text, end, isSpace);
     const wordEnd = runEnd(text, wordStart, isUnitChar);
     if (wordStart === end || wordEnd === wordStart) return { end };
-    const word = text.slice(wordStart, wordEnd);
-    const scale = decodeSuffix(word);
+    const word = shown(text.slice(wordStart, wordEnd));
+    const numberText = shown(written);
+    const scale = decodeSuffix(text.slice(wordStart, wordEnd));
     if (scale && !scale.prefixOnly) return { end: wordEnd, dim: scale.dim, exponent: scale.exponent };
     if (scale?.prefixOnly) {
       findings.push(error(Code.valueUnit,
@@ -93,7 +99,7 @@ export function lex(text: string, offset: number): LexResult {
     const written = text.slice(start, after.end);
     // Beyond the range of a double the number would silently become Infinity or 0.
     if (!Number.isFinite(value) || (value === 0 && /[1-9]/.test(mantissa))) {
-      findings.push(error(Code.valueSyntax, `\`${written.length > 24 ? `${written.slice(0, 24)}…` : written}\`: number out of range`, span(start, after.end)));
+      findings.push(error(Code.valueSyntax, `\`${shown(written)}\`: number out of range`, span(start, after.end)));
     } else {
       tokens.push({ t: 'num', value, dim: finalDim, span: span(start, after.end), text: written });
     }
@@ -122,12 +128,12 @@ export function lex(text: string, offset: number): LexResult {
     if (code) return pushNumber(start, code.mantissa, code.exponent, code.dim, suffixEnd, false);
     const scale = decodeSuffix(suffix);
     if (scale) return pushNumber(start, mantissa, power + scale.exponent, scale.dim, suffixEnd, false);
-    const numberText = text.slice(start, end);
+    const numberText = shown(text.slice(start, end));
     const hints = suggestSuffix(suffix);
     const advice = hints.length > 0
       ? `did you mean ${hints.map((h) => `\`${numberText}${h}\``).join(' or ')}?`
       : 'expected an SI prefix (p n µ m k M G) and/or a unit (Ω F V A Hz s %)';
-    findings.push(error(Code.valueUnit, `\`${numberText}${suffix}\`: unknown suffix \`${suffix}\` — ${advice}`, span(end, suffixEnd)));
+    findings.push(error(Code.valueUnit, `\`${numberText}${shown(suffix)}\`: unknown suffix \`${shown(suffix)}\` — ${advice}`, span(end, suffixEnd)));
     i = suffixEnd;
   };
 

@@ -3,7 +3,7 @@ import type { Finding } from '../types';
 import type { IntegerSet } from '../circuits/model';
 import { Code } from '../codes';
 import type { ValueNode } from './ast';
-import { error, isSpace } from './lexer';
+import { error, isSpace, shown } from './lexer';
 import { parseValue } from './parse';
 
 /** Splits at commas outside parentheses; each piece is trimmed, with its own document offset. */
@@ -55,16 +55,16 @@ function integerAt(text: string, offset: number, findings: Finding[]): number | 
     return undefined;
   }
   if (parsed.tolerance || parsed.unknown || !parsed.expr) {
-    findings.push(error(Code.valueSyntax, `\`${text}\`: expected a whole number`, span));
+    findings.push(error(Code.valueSyntax, `\`${shown(text)}\`: expected a whole number`, span));
     return undefined;
   }
   const value = constant(parsed.expr);
   if (value === undefined) {
-    findings.push(error(Code.valueSyntax, `\`${text}\`: a list takes plain numbers, not names`, span));
+    findings.push(error(Code.valueSyntax, `\`${shown(text)}\`: a list takes plain numbers, not names`, span));
     return undefined;
   }
   if (!Number.isSafeInteger(value) || (parsed.expr.kind === 'number' && parsed.expr.dim !== '')) {
-    findings.push(error(Code.valueSyntax, `\`${text}\`: expected a whole number without a unit`, span));
+    findings.push(error(Code.valueSyntax, `\`${shown(text)}\`: expected a whole number without a unit`, span));
     return undefined;
   }
   return value;
@@ -81,7 +81,7 @@ export function parseIntegerSet(text: string, offset: number): { set?: IntegerSe
     const max = integerAt(high.text, high.offset, findings);
     if (min === undefined || max === undefined) return { findings };
     if (min > max) {
-      findings.push(error(Code.valueSyntax, `range \`${text.trim()}\` runs backwards: write the smaller number first`,
+      findings.push(error(Code.valueSyntax, `range \`${shown(text.trim())}\` runs backwards: write the smaller number first`,
         { start: low.offset, end: high.offset + high.text.length }));
       return { findings };
     }

@@ -2,7 +2,7 @@
 import type { Finding, Span } from '../types';
 import { Code } from '../codes';
 import type { ValueNode } from './ast';
-import { error, type Token } from './lexer';
+import { error, shown, type Token } from './lexer';
 
 /** Parentheses and signs nested deeper than this are refused, not recursed into. */
 export const MAX_DEPTH = 64;
@@ -15,8 +15,8 @@ class Stop extends Error {
 
 function describe(token: Token): string {
   switch (token.t) {
-    case 'num': return `\`${token.text}\``;
-    case 'id': return `\`${token.name}\``;
+    case 'num': return `\`${shown(token.text)}\``;
+    case 'id': return `\`${shown(token.name)}\``;
     case 'op': return `\`${token.op}\``;
     case 'pm': return '`±`';
     case 'q': return '`?`';

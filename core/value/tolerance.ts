@@ -1,7 +1,7 @@
 // The tolerance written after a value: `±5%`, `+-5%`, `± 0.1 V`, `+80% -20%`.
 import type { Dim, Finding, Span, Tolerance } from '../types';
 import { Code } from '../codes';
-import { error, type Token } from './lexer';
+import { error, shown, type Token } from './lexer';
 
 export interface ToleranceSplit {
   body: Token[];
@@ -66,7 +66,7 @@ function symmetric(pm: Token, rest: Token[], findings: Finding[]): Omit<Toleranc
   }
   if (first.dim === '') {
     findings.push(error(Code.valueTolerance,
-      `tolerance \`${first.text}\` needs a unit: \`${first.text}%\` for relative, or an absolute amount such as \`${first.text} V\``, first.span));
+      `tolerance \`${shown(first.text)}\` needs a unit: \`${shown(first.text)}%\` for relative, or an absolute amount such as \`${shown(first.text)} V\``, first.span));
     return { toleranceSpan };
   }
   return { tolerance: { kind: kindOf(first.dim), plus: first.value, minus: first.value }, toleranceSpan, toleranceDim: first.dim };
