@@ -55,6 +55,7 @@ const userSettings = {
   'extensions.autoCheckUpdates': false,
   'extensions.autoUpdate': false,
   'telemetry.telemetryLevel': 'off',
+  'git.openRepositoryInParentFolders': 'never',
 };
 
 export async function startCodeServer(runDir, extraEnv = {}) {

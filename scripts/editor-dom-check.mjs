@@ -1,0 +1,93 @@
+// What a person sees: opens the demo in code-server with this project as a development extension, opens a
+// note, reads the code lens text and a hover from the DOM, and saves screenshots into artifacts/.
+// Exit 0 when the lens shows the RC delay and the hover shows its result, 1 otherwise.
+import { mkdirSync } from 'node:fs';
+import path from 'node:path';
+import { launchBrowser, log, restoreChanged, runFolder, snapshotFiles, startCodeServer, stopAll, workbenchUrl } from './editor-host.mjs';
+import { projectRoot } from './prepare-editor-host.mjs';
+
+const RUN_LIMIT_MS = 3 * 60_000;
+const workspace = path.join(projectRoot, 'demo');
+const artifacts = path.join(projectRoot, 'artifacts');
+// RC charging to 0.7 of the supply: t = RC·ln(1/0.3) = 100 kΩ · 1 µF · 1.20397 = 120.4 ms (por-delay in the demo).
+const expectedDelay = /120\.4\s*ms/;
+
+/** Screen centre of the first occurrence of `word` in the visible editor text. */
+async function pointOfWord(page, word) {
+  return page.evaluate((wanted) => {
+    const lines = document.querySelector('.editor-instance .monaco-editor .view-lines');
+    if (!lines) return undefined;
+    const walker = document.createTreeWalker(lines, NodeFilter.SHOW_TEXT);
+    for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+      const at = (node.textContent ?? '').indexOf(wanted);
+      if (at < 0) continue;
+      const range = document.createRange();
+      range.setStart(node, at);
+      range.setEnd(node, at + wanted.length);
+      const box = range.getBoundingClientRect();
+      return { x: box.left + box.width / 2, y: box.top + box.height / 2 };
+    }
+    return undefined;
+  }, word);
+}
+
+async function check(page) {
+  await page.waitForSelector('.monaco-workbench', { timeout: 60_000 });
+  await page.getByRole('treeitem', { name: 'notes' }).first().click();
+  await page.getByRole('treeitem', { name: 'power-and-clock.md' }).dblclick({ timeout: 30_000 });
+  await page.waitForSelector('.monaco-editor .codelens-decoration', { timeout: 30_000 });
+  await page.waitForTimeout(2500);
+  const lenses = await page.locator('.monaco-editor .codelens-decoration').allInnerTexts();
+  await page.screenshot({ path: path.join(artifacts, 'editor-lens.png') });
+  log(`code lens text: ${JSON.stringify(lenses)}`);
+
+  const point = await pointOfWord(page, '100k');
+  if (!point) throw new Error('the word 100k is not visible in the editor');
+  await page.mouse.move(point.x, point.y);
+  const hover = page.locator('.monaco-hover').filter({ hasText: 'por-delay' }).first();
+  await hover.waitFor({ state: 'visible', timeout: 15_000 });
+  await page.waitForTimeout(600);
+  const hoverText = await hover.innerText();
+  await page.screenshot({ path: path.join(artifacts, 'editor-hover.png') });
+  log(`hover text: ${JSON.stringify(hoverText.slice(0, 300))}`);
+
+  const problems = [];
+  if (!lenses.some((t) => expectedDelay.test(t))) problems.push('no code lens shows 120.4 ms');
+  if (!expectedDelay.test(hoverText)) problems.push('the hover does not show 120.4 ms');
+  return problems;
+}
+
+async function main() {
+  mkdirSync(artifacts, { recursive: true });
+  const run = { runDir: runFolder('dom') };
+  const guarded = snapshotFiles([workspace]);
+  let limitTimer;
+  let code = 1;
+  try {
+    run.server = await startCodeServer(run.runDir);
+    run.browser = await launchBrowser(run.runDir);
+    const page = await run.browser.newPage();
+    const limit = new Promise((_, reject) => {
+      limitTimer = setTimeout(() => reject(new Error(`DOM check did not finish within ${RUN_LIMIT_MS / 60_000} min`)), RUN_LIMIT_MS);
+    });
+    await page.goto(workbenchUrl(run.server.port, { folder: workspace }));
+    const problems = await Promise.race([check(page), limit]);
+    for (const problem of problems) log(`FAIL ${problem}`);
+    code = problems.length === 0 ? 0 : 1;
+    if (code === 0) log(`DOM check passed; screenshots in ${path.relative(projectRoot, artifacts)}/`);
+  } catch (error) {
+    log(error instanceof Error ? error.message : String(error));
+    const page = run.browser?.pages()[0];
+    if (page) await page.screenshot({ path: path.join(artifacts, 'editor-failure.png') }).catch(() => {});
+  } finally {
+    clearTimeout(limitTimer);
+    await stopAll(run);
+  }
+  if (restoreChanged(guarded).length > 0) {
+    log('the DOM check changed demo files (restored)');
+    code = 1;
+  }
+  return code;
+}
+
+process.exitCode = await main();
