@@ -26,7 +26,7 @@ export const oscillatorResults: readonly ResultSpec[] = [
   { key: 'startup', label: 'startup (first transition from a discharged capacitor)', dim: 's' },
 ];
 
-export const oscillatorHeadline = ['frequency', 'duty', 'startup'] as const;
+export const oscillatorHeadline = ['frequency', 'period', 'duty'] as const;
 
 /** A value that must be present and finite; reports it under its own key. */
 export function checkFinite(input: ModelInput, keys: readonly string[], issues: ModelIssue[]): boolean {
@@ -110,3 +110,15 @@ export function safetyCautions(input: ModelInput): string[] {
   if (!input.name || !safetyWords.test(input.name)) return [];
   return ['Used as watchdog, reset or safety timing: verify it independently (measurement, worst case over tolerance and temperature).'];
 }
+
+/**
+ * Inputs that pass every physics check can still overflow or underflow a double (1e-300 F, 1e300 Ω).
+ * Then the block gets an error rather than a missing number.
+ */
+export function overflowIssues(results: Readonly<Record<string, number>>, required: readonly string[], key: string): ModelIssue[] {
+  const missing = required.filter((result) => !Number.isFinite(results[result]));
+  if (missing.length === 0) return [];
+  return [{ key, message: `these values are beyond what can be computed: ${missing.join(', ')} would not be a finite number` }];
+}
+
+export const oscillatorKeys = oscillatorResults.map((result) => result.key);

@@ -2,12 +2,14 @@
 import type { BlockAnalysis } from '../types';
 import type { CircuitModel } from '../circuits/model';
 import { circuitById } from '../circuits/registry';
-import { formatPercent, formatQuantity } from '../format';
+import { formatPercent, formatQuantity, formatSignedPercent } from '../format';
 
 export function formatResult(model: CircuitModel, key: string, value: number): string {
   const spec = model.results.find((r) => r.key === key);
-  if (spec?.percent) return formatPercent(value);
-  if (key === 'baud') return `${formatQuantity(value, '')} baud`;
+  // An error is a signed deviation; a duty is a plain share.
+  if (spec?.percent) return key === 'error' ? formatSignedPercent(value) : formatPercent(value);
+  // Baud rates are read as whole numbers in the trade (9600, 115200), not with prefixes.
+  if (key === 'baud') return `${Math.round(value * 10) / 10} baud`;
   return formatQuantity(value, spec?.dim ?? '');
 }
 
