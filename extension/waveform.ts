@@ -16,7 +16,6 @@ export interface WaveformDeps {
 
 export function registerWaveform({ store, logger, extensionUri }: WaveformDeps): vscode.Disposable {
   let panel: vscode.WebviewPanel | undefined;
-  let shownUri: vscode.Uri | undefined;
 
   const post = (block: BlockAnalysis | undefined): void => {
     void panel?.webview.postMessage({ type: 'block', name: block?.name, circuit: block?.circuit, values: block?.values ?? {}, spread: block?.spread ?? {} });
@@ -43,14 +42,12 @@ export function registerWaveform({ store, logger, extensionUri }: WaveformDeps):
     } else {
       panel.reveal(undefined, true);
     }
-    shownUri = doc.uri;
     post(block);
     return true;
   };
 
   const follow = (editor: vscode.TextEditor): void => {
     if (!panel || !isTimingDocument(editor.document)) return;
-    if (shownUri && editor.document.uri.toString() !== shownUri.toString()) shownUri = editor.document.uri;
     const block = store.blockAt(editor.document, editor.selection.active);
     if (block) post(block);
   };
