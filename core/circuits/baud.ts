@@ -2,7 +2,7 @@
 // Without `divisor` the nearest whole divisor (at least 1) is used, as integer divisor UARTs do
 // (AVR UBRR + 1, the 16550 divisor latch); give `divisor` for fractional baud-rate generators.
 import type { CircuitModel, ModelInput, ModelIssue, WorkingLine } from './model';
-import { checkPositive, eng, finiteOnly, percent, quantity } from './common';
+import { checkPositive, eng, finiteOnly, percent, quantity, hasErrors, overflowIssues } from './common';
 
 const source = 'UART baud-rate generator arithmetic (rate = clock / (oversampling · divisor)), common practice';
 
@@ -51,6 +51,7 @@ export const baud: CircuitModel = {
     if (divisor !== undefined && !(Number.isFinite(divisor) && divisor > 0)) {
       issues.push({ key: 'divisor', message: `divisor must be greater than zero (got ${divisor})` });
     }
+    if (!hasErrors(issues)) issues.push(...overflowIssues(baud.compute(input), ['baud', 'error'], 'baud'));
     return issues;
   },
 

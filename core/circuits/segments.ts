@@ -38,8 +38,8 @@ export function sampleRcSegments(segments: readonly RcSegment[], capacitorName =
     t0 += segment.duration;
   }
   return [
-    { name: capacitorName, dim: 'V', points: capacitor },
-    { name: 'output', dim: 'V', points: output },
+    { name: capacitorName, dim: 'V', points: finitePoints(capacitor) },
+    { name: 'output', dim: 'V', points: finitePoints(output) },
   ];
 }
 
@@ -51,5 +51,10 @@ export function sampleSteps(steps: ReadonlyArray<{ duration: number; level: numb
     points.push([t0, step.level], [t0 + step.duration, step.level]);
     t0 += step.duration;
   }
-  return { name, dim: 'V', points };
+  return { name, dim: 'V', points: finitePoints(points) };
+}
+
+/** Extreme but valid inputs can overflow a time axis (1e300 F); a drawing keeps only the points that exist. */
+export function finitePoints(points: Array<[number, number]>): Array<[number, number]> {
+  return points.every(([t, v]) => Number.isFinite(t) && Number.isFinite(v)) ? points : points.filter(([t, v]) => Number.isFinite(t) && Number.isFinite(v));
 }

@@ -1,9 +1,9 @@
 // MCU timer: a counter clocked at clock/prescaler that wraps at the reload (period) register.
 import type { CircuitModel, ModelInput, ModelIssue, RegisterSearch, Waveform } from './model';
-import { checkPositive, eng, finiteOnly, percent, quantity, safetyCautions } from './common';
+import { checkPositive, eng, finiteOnly, percent, quantity, safetyCautions, hasErrors, overflowIssues } from './common';
 import { anyPrescaler, normaliseSet, setContains, setText } from './integer-set';
 import { searchTimerRegisters, ticksPerPeriod, type CountMode } from './timer-search';
-import { clampCycles } from './segments';
+import { clampCycles, finitePoints } from './segments';
 
 const source = 'counter arithmetic of a reload timer (period = prescaler · ticks / clock), common practice';
 
@@ -78,6 +78,7 @@ export const timer: CircuitModel = {
         issues.push({ key: 'compare', severity: 'warning', message: `compare ${compare} is beyond the period (${full}): the output stays active, duty 100 %` });
       }
     }
+    if (!hasErrors(issues)) issues.push(...overflowIssues(timer.compute(input), ['period', 'frequency', 'counts'], 'clock'));
     return issues;
   },
 
@@ -166,7 +167,7 @@ function timerWaveform(input: ModelInput, cycles: number): Waveform {
   }
   const levels = [{ label: 'reload', value: reload }];
   if (compare !== undefined) levels.push({ label: 'compare', value: compare });
-  const traces = [{ name: 'counter', dim: '' as const, points: counter }];
-  if (compare !== undefined) traces.push({ name: 'output', dim: '' as const, points: output });
+  const traces = [{ name: 'counter', dim: '' as const, points: finitePoints(counter) }];
+  if (compare !== undefined) traces.push({ name: 'output', dim: '' as const, points: finitePoints(output) });
   return { traces, levels, duration: n * ticks * tick };
 }

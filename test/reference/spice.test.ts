@@ -67,10 +67,12 @@ describe('oscillators against ngspice (eecircuit-engine)', function () {
   this.timeout(60000);
 
   before(async () => {
-    const { Simulation } = await import('eecircuit-engine');
+    // The package's type entry sits only under "exports", which this project's `node` resolution does not read.
+    const specifier = 'eecircuit-engine';
+    const { Simulation } = (await import(specifier)) as { Simulation: new () => Engine & { start(): Promise<void> } };
     const sim = new Simulation();
     await sim.start();
-    engine = sim as unknown as Engine;
+    engine = sim;
   });
 
   it('schmitt-rc: hysteresis switch driving R into C', async () => {
