@@ -2,7 +2,12 @@
 
 export type DataModel = 'ilp32' | 'lp64' | 'ip16';
 
-export interface IntType { kind: 'int'; name: string; bits: number; signed: boolean; /** C11 6.3.1.1 conversion rank. */ rank: number }
+export interface IntType {
+  kind: 'int'; name: string; bits: number; signed: boolean;
+  /** C11 6.3.1.1 conversion rank. */ rank: number;
+  /** For a typedef (`uint16_t`): the keyword type it names, which arithmetic results are reported as. */
+  base?: string;
+}
 export interface FloatType { kind: 'float'; name: 'float' | 'double' | 'long double'; rank: number }
 export type CType = IntType | FloatType;
 
@@ -43,7 +48,7 @@ export function typeSystem(model: DataModel, charSigned = true): TypeSystem {
   named.set('long double', { kind: 'float', name: 'long double', rank: 2 });
   const by = (n: string): IntType => named.get(n) as IntType;
   // <stdint.h> as glibc (x86, x86-64) and avr-libc define them; the names keep their spelling for display.
-  const alias = (name: string, of: string): void => { named.set(name, { ...by(of), name }); };
+  const alias = (name: string, of: string): void => { named.set(name, { ...by(of), name, base: of }); };
   alias('int8_t', 'signed char'); alias('uint8_t', 'unsigned char');
   alias('int16_t', model === 'ip16' ? 'int' : 'short'); alias('uint16_t', model === 'ip16' ? 'unsigned int' : 'unsigned short');
   alias('int32_t', model === 'ip16' ? 'long' : 'int'); alias('uint32_t', model === 'ip16' ? 'unsigned long' : 'unsigned int');
@@ -82,7 +87,8 @@ export function convert(x: Val, t: CType): Val | string {
 
 /** Integer promotions, C11 6.3.1.1p2. */
 export function promote(t: CType, ts: TypeSystem): CType {
-  if (t.kind === 'float' || t.rank >= RANK.int) return t;
+  if (t.kind === 'float') return t;
+  if (t.rank >= RANK.int) return t.base ? (ts.named.get(t.base) ?? t) : t;
   return t.bits < ts.int.bits || (t.bits === ts.int.bits && t.signed) ? ts.int : ts.uint;
 }
 
@@ -102,7 +108,7 @@ export function commonType(a: CType, b: CType, ts: TypeSystem): CType {
 }
 
 export function unsignedOf(t: IntType, ts: TypeSystem): IntType {
-  for (const c of ts.named.values()) if (c.kind === 'int' && !c.signed && c.rank === t.rank && c.bits === t.bits && !c.name.includes('_t')) return c;
+  for (const c of ts.named.values()) if (c.kind === 'int' && !c.signed && c.rank === t.rank && c.bits === t.bits && !c.base) return c;
   return { ...t, signed: false, name: `unsigned ${t.name}` };
 }
 

@@ -93,7 +93,7 @@ export class DeclarationScanner {
     const type = named ?? (keywordType ? this.sink.typeNamed(keywordType) : undefined);
     if (words.includes('typedef')) {
       const name = tokens[i];
-      if (type && name?.kind === 'ident' && i === tokens.length - 1) this.sink.typedef(name.text, { ...type, name: name.text } as CType);
+      if (type && name?.kind === 'ident' && i === tokens.length - 1) this.sink.typedef(name.text, type.kind === 'int' ? { ...type, name: name.text, base: type.base ?? type.name } : type);
       return;
     }
     const isAuto = words.includes('auto') && !type && typeWords.length === 0;
