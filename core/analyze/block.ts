@@ -85,7 +85,9 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   const issues = [...limitIssues(model, params), ...safeValidate(model, input)];
   for (const issue of issues) {
     const entry = entries.get(issue.key);
-    findings.push({ severity: issue.severity ?? 'error', code: Code.physics, message: issue.message, span: entry ? entry.valueSpan : raw.headerSpan });
+    // Every physics finding names its key, even where the model's sentence speaks in the trade's words.
+    const message = issue.message.includes(`\`${issue.key}\``) ? issue.message : `\`${issue.key}\`: ${issue.message}`;
+    findings.push({ severity: issue.severity ?? 'error', code: Code.physics, message, span: entry ? entry.valueSpan : raw.headerSpan });
   }
   if (blocked()) return analysis;
   try {
