@@ -122,3 +122,9 @@ export function overflowIssues(results: Readonly<Record<string, number>>, requir
 }
 
 export const oscillatorKeys = oscillatorResults.map((result) => result.key);
+
+/** A value inside a formula: negatives in parentheses so "5 V − (−2.5 V)" reads right. */
+export function term(value: number, unit = ''): string {
+  const text = eng(value, unit);
+  return value < 0 ? `(${text.replace('-', '−')})` : text;
+}

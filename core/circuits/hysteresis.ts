@@ -3,7 +3,7 @@
 import { rcSegmentTime, rcVoltageAt } from '../rc';
 import type { ModelIssue, WorkingLine } from './model';
 import type { Relaxation } from './relaxation';
-import { eng } from './common';
+import { eng, term } from './common';
 
 export interface Hysteresis {
   upper: number;
@@ -68,17 +68,17 @@ export function hysteresisWorking(h: Hysteresis, results: Readonly<Record<string
   return [
     {
       formula: `t_high = τ·ln((VOH − V₀)/(VOH − VT+))${h.delay > 0 ? ' + tpd' : ''}, ${from}`,
-      substituted: `t_high = ${eng(h.tau, 's')} · ln((${eng(h.voh, 'V')} − ${eng(high.v0, 'V')})/(${eng(h.voh, 'V')} − ${eng(h.upper, 'V')}))${delay} = ${eng(results.high, 's')}`,
+      substituted: `t_high = ${eng(h.tau, 's')} · ln((${term(h.voh, 'V')} − ${term(high.v0, 'V')})/(${term(h.voh, 'V')} − ${term(h.upper, 'V')}))${delay} = ${eng(results.high, 's')}`,
       source,
     },
     {
       formula: `t_low = τ·ln((V₀ − VOL)/(VT− − VOL))${h.delay > 0 ? ' + tpd' : ''}`,
-      substituted: `t_low = ${eng(h.tau, 's')} · ln((${eng(low.v0, 'V')} − ${eng(h.vol, 'V')})/(${eng(h.lower, 'V')} − ${eng(h.vol, 'V')}))${delay} = ${eng(results.low, 's')}`,
+      substituted: `t_low = ${eng(h.tau, 's')} · ln((${term(low.v0, 'V')} − ${term(h.vol, 'V')})/(${term(h.lower, 'V')} − ${term(h.vol, 'V')}))${delay} = ${eng(results.low, 's')}`,
       source,
     },
     {
       formula: 'startup = τ·ln((Vfinal − 0)/(Vfinal − Vthreshold)), from a discharged capacitor',
-      substituted: `startup = ${eng(h.tau, 's')} · ln(${eng(osc.startup.vInf, 'V')}/(${eng(osc.startup.vInf, 'V')} − ${eng(osc.highIs === 'second' ? h.upper : h.lower, 'V')}))${delay} = ${eng(results.startup, 's')}`,
+      substituted: `startup = ${eng(h.tau, 's')} · ln(${term(osc.startup.vInf, 'V')}/(${term(osc.startup.vInf, 'V')} − ${term(osc.highIs === 'second' ? h.upper : h.lower, 'V')}))${delay} = ${eng(results.startup, 's')}`,
       source,
     },
     { formula: 'f = 1/(t_high + t_low)', substituted: `f = 1/${eng(results.period, 's')} = ${eng(results.frequency, 'Hz')}`, source: 'definition of frequency' },

@@ -94,4 +94,40 @@ describe('circuit registry', () => {
       for (const r of model.results) if (r.key === 'duty' || r.key === 'error') assert.ok(r.percent && r.dim === '', `${model.id}.${r.key}`);
     }
   });
+
+  // Sample blocks of our own, one per circuit, for the hover's working.
+  const samples: Record<string, { values: Record<string, number>; choices?: Record<string, string> }> = {
+    'schmitt-rc': { values: { supply: 5, 'vt+': 3, 'vt-': 2, r: 10e3, c: 1e-9, tpd: 20e-9 } },
+    'comparator-rc': { values: { voh: 5, vol: -5, r1: 1e3, r2: 2e3, r: 10e3, c: 1e-9 } },
+    '555-astable': { values: { supply: 5, ra: 1e3, rb: 10e3, c: 1e-9 }, choices: { diode: 'yes' } },
+    '555-monostable': { values: { supply: 5, r: 10e3, c: 1e-6 } },
+    'inverter-rc': { values: { supply: 5, r: 10e3, c: 1e-9 } },
+    ring: { values: { stages: 5, tpd: 1e-9 } },
+    'rc-delay': { values: { r: 10e3, c: 1e-6, to: 2, supply: 3.3 } },
+    timer: { values: { clock: 16e6, prescaler: 8, reload: 1999, compare: 500 } },
+    baud: { values: { clock: 16e6, baud: 9600 } },
+    'crystal-load': { values: { cl: 12.5e-12, cstray: 3e-12, c1: 18e-12, c2: 18e-12 } },
+  };
+
+  for (const model of circuits) {
+    it(`${model.id}: working shows each formula with numbers and a source`, () => {
+      const input = withDefaults(model, samples[model.id]);
+      assert.deepEqual(model.validate(input), []);
+      const lines = model.working(input, model.compute(input));
+      assert.ok(lines.length >= 1);
+      for (const line of lines) {
+        assert.ok(line.formula.length > 3 && line.source.length > 5, JSON.stringify(line));
+        assert.match(line.substituted, /\d/);
+        assert.doesNotMatch(line.substituted, /NaN|undefined|Infinity/);
+      }
+    });
+  }
+
+  it('cites the NE555 datasheet for the 555 formulas', () => {
+    for (const id of ['555-astable', '555-monostable']) {
+      const model = circuitById(id) as CircuitModel;
+      const input = withDefaults(model, samples[id]);
+      assert.ok(model.working(input, model.compute(input)).some((line) => /NE555 datasheet \(SLFS022\)/.test(line.source)), id);
+    }
+  });
 });
