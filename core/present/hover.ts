@@ -61,7 +61,8 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
   if (working.length) {
     out.push('**working**\n' + working.map((w) => `- ${code(w.formula)}\n  ${code(w.substituted)}\n  *${escapeMarkdown(w.source)}*`).join('\n'));
   }
-  if (model.assumptions.length) out.push('**assumes** ' + model.assumptions.map(escapeMarkdown).join('; '));
+  // Assumptions are the model's own text (ours, with inline code), not the document's: listed as written.
+  if (model.assumptions.length) out.push('**assumes**\n' + model.assumptions.map((a) => `- ${a}`).join('\n'));
   for (const f of analysis.findings.filter((f) => f.severity === 'info')) out.push(`ℹ️ ${escapeMarkdown(f.message)}`);
   return out.join('\n\n');
 }
