@@ -6,6 +6,7 @@ import { lineOf, lineStarts } from '../scan/lines';
 import { analyzeBlock } from './block';
 import { noIdentifiers, type AnalyzeOptions, type IdentifierSource } from './context';
 import { cFileSource, fromFileSource } from './sources';
+import { isFirmwarePath } from './keys';
 
 export { analyzeBlock } from './block';
 export * from './context';
@@ -32,7 +33,7 @@ export function analyzeDocument(doc: TextDocumentLike, options: AnalyzeOptions):
   for (const raw of blocks) {
     let source: IdentifierSource = own ?? noIdentifiers;
     const extra: Finding[] = [];
-    const from = raw.entries.find((e) => e.key === 'from');
+    const from = raw.entries.find((e) => e.key === 'from' && isFirmwarePath(e.valueText));
     if (from) {
       if (isC) extra.push({ severity: 'warning', code: Code.keyUnknown, message: '`from:` is for notes; a block in C reads the constants of its own file', span: from.keySpan });
       else {

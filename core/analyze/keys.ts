@@ -9,6 +9,23 @@ export function isMetaKey(key: string): key is MetaKey {
   return (metaKeys as readonly string[]).includes(key);
 }
 
+const firmwareExtensions = ['.h', '.c', '.hh', '.hpp', '.cc', '.cpp', '.cxx', '.inc'];
+
+/**
+ * `from:` names a firmware file when its value ends in a C-family extension; otherwise it is the circuit's own
+ * `from` parameter (rc-delay's start voltage). One rule for the scanner of notes and the planner alike.
+ */
+export function isFirmwarePath(value: string): boolean {
+  const lower = value.trim().toLowerCase();
+  return firmwareExtensions.some((ext) => lower.endsWith(ext));
+}
+
+/** Whether an entry steers the analysis (meta) rather than giving a circuit parameter. */
+export function isMetaEntry(key: string, value: string): boolean {
+  if (key === 'from') return isFirmwarePath(value);
+  return isMetaKey(key);
+}
+
 /** Levenshtein distance, bounded: returns limit + 1 once it is certain to exceed limit. */
 export function editDistance(a: string, b: string, limit = 3): number {
   if (Math.abs(a.length - b.length) > limit) return limit + 1;

@@ -5,7 +5,7 @@ import type { CircuitModel, IntegerSet, QuantityParam } from '../circuits/model'
 import { compileValue, dimOf, parseIntegerSet, parseValue, type ValueNode } from '../value';
 import { Code } from '../codes';
 import type { DataModelName, IdentifierLookup, IdentifierSource } from './context';
-import { didYouMean, isMetaKey, metaKeys } from './keys';
+import { didYouMean, isMetaEntry, metaKeys } from './keys';
 
 export interface Slot {
   key: string;
@@ -84,10 +84,10 @@ export function buildPlan(raw: RawBlock, model: CircuitModel, source: Identifier
   const paramKeys = model.params.map((p) => p.key);
 
   for (const entry of raw.entries) {
-    if (isMetaKey(entry.key)) continue;
+    if (isMetaEntry(entry.key, entry.valueText)) continue;
     const spec = model.params.find((p) => p.key === entry.key);
     if (!spec) {
-      const hint = didYouMean(entry.key, [...paramKeys, ...metaKeys]);
+      const hint = entry.key === 'from' ? ' (a firmware file for `from:` ends in .h, .c, .hpp …)' : didYouMean(entry.key, [...paramKeys, ...metaKeys]);
       plan.findings.push({
         severity: 'warning',
         code: Code.keyUnknown,

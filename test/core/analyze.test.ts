@@ -122,4 +122,13 @@ describe('analysis of one block', () => {
     assert.deepEqual(errors(block), []);
     close(block.values.frequency, 1000);
   });
+
+  it('reads `from:` as rc-delay\'s start voltage unless it names a firmware file', () => {
+    // RC charging law (common practice): from 1 V toward 5 V, reaching 3 V takes RC·ln(4/2) = ln2·RC.
+    const block = noteBlock(['circuit: rc-delay', 'r: 10k', 'c: 1u', 'from: 1 V', 'toward: 5 V', 'to: 3 V']);
+    assert.deepEqual(errors(block), []);
+    close(block.values.time, Math.LN2 * 10e3 * 1e-6);
+    const typo = noteBlock(['circuit: timer', 'from: board', 'clock: 1 MHz', 'prescaler: 1', 'reload: 9']);
+    assert.match(typo.findings[0].message, /ends in \.h/);
+  });
 });
