@@ -10,19 +10,20 @@ export function isTimingHost(file: string): boolean {
 }
 
 /** Files under the given paths, sorted; an unreadable path is returned as a problem (exit 2). */
-export function collectFiles(paths: string[]): { files: string[]; problems: string[] } {
+export function collectFiles(paths: string[], cwd: string): { files: string[]; problems: string[] } {
   const files = new Set<string>();
   const problems: string[] = [];
   for (const given of paths) {
+    const full = path.resolve(cwd, given);
     let stat: fs.Stats;
     try {
-      stat = fs.statSync(given);
+      stat = fs.statSync(full);
     } catch {
       problems.push(`cannot read ${given}: no such file or folder`);
       continue;
     }
-    if (stat.isDirectory()) walk(given, files);
-    else if (stat.isFile()) files.add(path.resolve(given));
+    if (stat.isDirectory()) walk(full, files);
+    else if (stat.isFile()) files.add(full);
     else problems.push(`cannot read ${given}: not a file or folder`);
   }
   return { files: [...files].sort(), problems };

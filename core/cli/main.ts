@@ -114,7 +114,7 @@ function check(argv: string[], io: Io): number {
     io.err(problems.map((p) => `tickmark check: ${p}\n`).join('') + '\n' + checkHelp);
     return 2;
   }
-  const { files, problems: unreadable } = collectFiles(paths);
+  const { files, problems: unreadable } = collectFiles(args.positional, io.cwd);
   if (unreadable.length) {
     io.err(unreadable.map((p) => `tickmark check: ${p}\n`).join(''));
     return 2;
@@ -146,7 +146,7 @@ function wave(argv: string[], io: Io): number {
   }
   const file = path.resolve(io.cwd, args.positional[0]);
   const options = optionsFrom(args, io, [path.dirname(file)]);
-  const { files, problems: unreadable } = collectFiles([file]);
+  const { files, problems: unreadable } = collectFiles([args.positional[0]], io.cwd);
   if (unreadable.length || typeof options === 'string') {
     io.err(`tickmark wave: ${unreadable[0] ?? options}\n`);
     return 2;
