@@ -59,7 +59,7 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
   }
   const working = safeWorking(model, analysis);
   if (working.length) {
-    out.push('**working**\n' + working.map((w) => `- ${code(w.formula)}\n  ${code(w.substituted)}\n  *${escapeMarkdown(w.source)}*`).join('\n'));
+    out.push('**working**\n' + working.map((w) => `- ${code(w.formula)}  \n  ${code(w.substituted)}  \n  *${escapeMarkdown(w.source)}*`).join('\n'));
   }
   // Assumptions are the model's own text (ours, with inline code), not the document's: listed as written.
   if (model.assumptions.length) out.push('**assumes**\n' + model.assumptions.map((a) => `- ${a}`).join('\n'));
