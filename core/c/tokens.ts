@@ -20,8 +20,22 @@ const PUNCTUATORS = [
   '[', ']', '(', ')', '{', '}', '.', '&', '*', '+', '-', '~', '!', '/', '%', '<', '>', '^', '|', '?', ':', ';', '=', ',', '#',
 ];
 
-const isIdentStart = (c: string): boolean => /[A-Za-z_$]/.test(c);
-const isIdentPart = (c: string): boolean => /[A-Za-z0-9_$]/.test(c);
+// Punctuators grouped by first character: the tokenizer runs over whole firmware files on every keystroke.
+const PUNCTUATORS_BY_FIRST = new Map<string, string[]>();
+for (const p of PUNCTUATORS) {
+  const list = PUNCTUATORS_BY_FIRST.get(p[0]) ?? [];
+  list.push(p);
+  PUNCTUATORS_BY_FIRST.set(p[0], list);
+}
+
+function isIdentStartCode(ch: number): boolean {
+  return (ch >= 97 && ch <= 122) || (ch >= 65 && ch <= 90) || ch === 95 || ch === 36;
+}
+function isIdentPartCode(ch: number): boolean {
+  return isIdentStartCode(ch) || (ch >= 48 && ch <= 57);
+}
+const isIdentStart = (c: string): boolean => c !== undefined && c.length > 0 && isIdentStartCode(c.charCodeAt(0));
+const isIdentPart = (c: string): boolean => c !== undefined && c.length > 0 && isIdentPartCode(c.charCodeAt(0));
 const isDigit = (c: string): boolean => c >= '0' && c <= '9';
 
 /** Length of a backslash-newline splice at `i` (0 when there is none). */
@@ -58,7 +72,7 @@ export function tokenize(text: string): Token[] {
     }
     if (isIdentStart(c)) {
       let j = i + 1;
-      while (j < n && isIdentPart(text[j])) j++;
+      while (j < n && isIdentPartCode(text.charCodeAt(j))) j++;
       const word = text.slice(i, j);
       if ((text[j] === "'" || text[j] === '"') && (word === 'L' || word === 'u' || word === 'U' || word === 'u8')) {
         j = quoted(text, j, text[j], tokens, i);
@@ -83,7 +97,7 @@ export function tokenize(text: string): Token[] {
       continue;
     }
     if (c === "'" || c === '"') { i = quoted(text, i, c, tokens, i); continue; }
-    const p = PUNCTUATORS.find((q) => text.startsWith(q, i));
+    const p = PUNCTUATORS_BY_FIRST.get(c)?.find((q) => text.startsWith(q, i));
     if (p) { tokens.push({ kind: 'punct', text: p, start: i, end: i + p.length }); i += p.length; continue; }
     tokens.push({ kind: 'other', text: c, start: i, end: i + 1, error: `unexpected character '${c}'` });
     i++;
@@ -131,5 +145,8 @@ export interface SourceToken extends Token {
 }
 
 export function tokenizeSource(text: string, uri: string): SourceToken[] {
-  return tokenize(text).map((t) => ({ ...t, uri }));
+  // Tagged in place: a copy per token doubled the garbage of a large file.
+  const tokens = tokenize(text) as SourceToken[];
+  for (const t of tokens) t.uri = uri;
+  return tokens;
 }
