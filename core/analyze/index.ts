@@ -7,11 +7,34 @@ import { analyzeBlock } from './block';
 import { noIdentifiers, type AnalyzeOptions, type IdentifierSource } from './context';
 import { cFileSource, fromFileSource } from './sources';
 import { isFirmwarePath } from './keys';
+import { AnalysisCache, type CacheStats } from './cache';
 
 export { analyzeBlock } from './block';
 export * from './context';
+export { AnalysisCache, type CacheStats } from './cache';
 
-export function analyzeDocument(doc: TextDocumentLike, options: AnalyzeOptions): DocumentAnalysis {
+/** One document's analyser, kept while the document is open: an edit re-analyses only the blocks it touched. */
+export class Analyzer {
+  private readonly cache = new AnalysisCache();
+  analyze(doc: TextDocumentLike, options: AnalyzeOptions): DocumentAnalysis {
+    return analyzeDocument(doc, options, this.cache);
+  }
+  /** Blocks in the last pass, and how many of them were analysed afresh. */
+  get stats(): CacheStats {
+    return { ...this.cache.stats };
+  }
+}
+
+export function analyzeDocument(doc: TextDocumentLike, options: AnalyzeOptions, cache?: AnalysisCache): DocumentAnalysis {
+  cache?.begin(options);
+  try {
+    return analyzeAll(doc, options, cache);
+  } finally {
+    cache?.end();
+  }
+}
+
+function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: AnalysisCache | undefined): DocumentAnalysis {
   const analysis: DocumentAnalysis = { uri: doc.uri, blocks: [], findings: [], dependencies: [] };
   if (doc.text.length > options.maxFileBytes) {
     analysis.findings.push({
@@ -45,7 +68,8 @@ export function analyzeDocument(doc: TextDocumentLike, options: AnalyzeOptions):
       }
     }
     used.add(source);
-    const result = analyzeBlock(raw, { uri: doc.uri, line: lineOf(starts, raw.headerSpan.start) + 1, options, source });
+    const context = { uri: doc.uri, line: lineOf(starts, raw.headerSpan.start) + 1, options, source };
+    const result = cache ? cache.analyzeBlock(raw, context) : analyzeBlock(raw, context);
     result.findings.unshift(...extra);
     analysis.blocks.push(result);
   }
