@@ -12,6 +12,7 @@ import { parseClaims } from './claims';
 import { monteCarlo, worstCase } from './spread';
 import { solveUnknowns } from './unknowns';
 import { checkClaims } from './mismatch';
+import { seriesFindings } from './series-check';
 
 export interface BlockContext {
   uri: string;
@@ -65,6 +66,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
 
   const plan = buildPlan(raw, model, context.source, dataModel);
   findings.push(...plan.findings);
+  findings.push(...seriesFindings(raw, model, context.uri));
   analysis.identifiers = plan.identifiers;
   analysis.choices = { ...plan.choices };
   const blocked = () => findings.some((f) => f.severity === 'error');
