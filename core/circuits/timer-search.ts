@@ -33,13 +33,6 @@ function reloadRange(mode: CountMode, bits: number): { min: number; max: number 
   return { min: mode === 'up' ? 0 : 1, max: 2 ** bits - 1 };
 }
 
-/** Reloads nearest to an ideal (fractional) tick count, within the counter's range. */
-function nearestReloads(mode: CountMode, bits: number, ticks: number): number[] {
-  const ideal = mode === 'up' ? ticks - 1 : ticks / 2;
-  const range = reloadRange(mode, bits);
-  return nearestMembers({ kind: 'range', ...range }, ideal);
-}
-
 export function searchTimerRegisters(query: TimerSearchQuery): RegisterSearchResult | { error: string } {
   const { clock, mode, bits, measure, target } = query;
   if (!(clock > 0) || !Number.isFinite(clock)) return { error: 'the search needs a positive `clock`' };
@@ -71,8 +64,14 @@ export function searchTimerRegisters(query: TimerSearchQuery): RegisterSearchRes
       best = { prescaler, reload, error };
     }
   };
+  // The hot loop of a wide search: the two nearest reloads without building an array per prescaler.
   const withPrescaler = (prescaler: number) => {
-    for (const reload of query.reload !== undefined ? [query.reload] : nearestReloads(mode, bits, ideal / prescaler)) consider(prescaler, reload);
+    if (query.reload !== undefined) return consider(prescaler, query.reload);
+    const x = nearestIdealReload(mode, ideal / prescaler);
+    const lo = Math.min(range.max, Math.max(range.min, Math.floor(x)));
+    const hi = Math.min(range.max, Math.max(range.min, Math.ceil(x)));
+    consider(prescaler, lo);
+    if (hi !== lo) consider(prescaler, hi);
   };
   const withReload = (reload: number) => {
     for (const prescaler of nearestMembers(prescalers, ideal / ticksPerPeriod(mode, reload))) consider(prescaler, reload);
