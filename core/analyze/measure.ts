@@ -34,8 +34,12 @@ export function computeAt(plan: Plan, offsets?: Offsets, overrides?: Readonly<Re
 }
 
 export function finiteOnly(results: Record<string, number>): Record<string, number> {
+  // for…in, not Object.entries: this runs for every Monte Carlo sample.
   const out: Record<string, number> = {};
-  for (const [key, value] of Object.entries(results)) if (typeof value === 'number' && Number.isFinite(value)) out[key] = value;
+  for (const key in results) {
+    const value = results[key];
+    if (typeof value === 'number' && Number.isFinite(value)) out[key] = value;
+  }
   return out;
 }
 

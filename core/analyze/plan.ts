@@ -263,6 +263,18 @@ function applyTolerance(value: number, tolerance: Tolerance, u: number): number 
   return tolerance.kind === 'relative' ? value * (1 + amount) : value + amount;
 }
 
+const specsByModel = new WeakMap<CircuitModel, Map<string, QuantityParam>>();
+
+/** A model's quantity parameters by key, built once: evaluateParams runs per Monte Carlo sample. */
+function quantitySpecs(model: CircuitModel): Map<string, QuantityParam> {
+  let specs = specsByModel.get(model);
+  if (!specs) {
+    specs = new Map(model.params.filter((p): p is QuantityParam => p.kind === 'quantity').map((p) => [p.key, p]));
+    specsByModel.set(model, specs);
+  }
+  return specs;
+}
+
 /** Evaluates every quantity key in plan order; `overrides` replace a key (solved or trial values). */
 export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> {
   const values: Record<string, number> = {};
@@ -277,7 +289,7 @@ export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readon
         value = slot.evaluate(env);
         if (slot.tolerance && offsets && offsets[key]) value = applyTolerance(value, slot.tolerance, offsets[key]);
       } else {
-        const spec = plan.model.params.find((p) => p.key === key) as QuantityParam | undefined;
+        const spec = quantitySpecs(plan.model).get(key);
         if (!spec || spec.default === undefined) continue;
         value = typeof spec.default === 'number' ? spec.default : spec.default(values);
       }

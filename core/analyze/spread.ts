@@ -88,9 +88,9 @@ export function monteCarlo(plan: Plan, keys: string[], samples: number, seed: nu
     for (const key of keys) offsets[key] = random() * 2 - 1;
     const results = computeAt(plan, offsets, overrides);
     if (!results) continue;
-    for (const [key, value] of Object.entries(results)) {
+    for (const key in results) {
       const store = (collected[key] ??= new Float64Array(samples));
-      store[(counts[key] = (counts[key] ?? 0) + 1) - 1] = value;
+      store[(counts[key] = (counts[key] ?? 0) + 1) - 1] = results[key];
     }
   }
   for (const [key, store] of Object.entries(collected)) {
