@@ -24,7 +24,8 @@ export function generateFirmware(lines: number, blocks: number): string {
       `    timer_set_reload(TIMER${i % 8}, TASK${i}_TOP); /* ${reload} */`,
       '}',
     );
-    while (out.length - start < per) out.push(`static volatile uint32_t pad${i}_${out.length - start}; /* filler: counters of task ${i} */`);
+    // Short filler keeps the file under the default size limit (2 MB), so the check reads it.
+    while (out.length - start < per) out.push((out.length - start) % 3 ? '\tn++;' : '');
   }
   while (out.length < lines) out.push('/* end filler */');
   return out.join('\n') + '\n';

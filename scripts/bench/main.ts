@@ -1,0 +1,25 @@
+// Runs every case in order and prints one table; the exit code is 0 even when a target is missed.
+import { machine, printRows, type Row } from './measure';
+import { bundle, firmwareScan, monteCarlo, noteRescore, spiceRatio, timerSearch } from './cases';
+
+export async function runBench(out: (line: string) => void): Promise<number> {
+  out(`Tickmark bench — ${machine()}`);
+  const rows: Row[] = [];
+  const steps: Array<[string, () => Row[] | Promise<Row[]>]> = [
+    ['1', firmwareScan],
+    ['2', noteRescore],
+    ['3', timerSearch],
+    ['4', spiceRatio],
+    ['5', monteCarlo],
+    ['6', bundle],
+  ];
+  for (const [label, step] of steps) {
+    try {
+      rows.push(...(await step()));
+    } catch (cause) {
+      rows.push({ figure: `${label}  (failed)`, value: 'n/a', target: '—', met: false, note: cause instanceof Error ? cause.message.split('\n')[0] : String(cause) });
+    }
+  }
+  printRows(rows, out);
+  return 0;
+}
