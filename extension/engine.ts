@@ -1,11 +1,19 @@
 // The one seam between the editor glue and the core engine: every feature imports the engine from here.
 // No timing math belongs in extension/; this file only re-exports core functions.
-import { circuits } from '../core/circuits/registry';
+import { circuitById, circuits } from '../core/circuits/registry';
+import type { CircuitModel } from '../core/circuits/model';
 
 export { analyzeDocument, type AnalyzeOptions } from '../core/analyze';
 export { headline as formatHeadline } from '../core/present/values';
 export { hoverMarkdown as blockHoverMarkdown } from '../core/present/hover';
-export { waveformFor } from '../core/present/waveform';
+export { waveformFor, defaultCycles } from '../core/present/waveform';
+export { bandText, formatResult } from '../core/present/values';
+export { renderWaveformSvg, type WaveformSvgOptions } from '../core/wave/svg';
+
+/** The model of a block's circuit: its title and result labels for the panel and preview. */
+export function circuitModel(id: string | undefined): CircuitModel | undefined {
+  return id ? circuitById(id) : undefined;
+}
 
 /** Circuit ids for the insert command, from the core's registry. */
 export function circuitNames(): string[] {

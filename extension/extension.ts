@@ -7,11 +7,20 @@ import { registerCommands } from './commands';
 import { registerDiagnostics } from './diagnostics';
 import { registerHover } from './hover';
 import { createLogger } from './logger';
+import { timingPreviewPlugin, type MarkdownIt } from './preview';
 import { registerWaveform } from './waveform';
+import type { PanelEvents } from './panel/events';
 
-export function activate(context: vscode.ExtensionContext): void {
+/** What activate() hands to VS Code and other extensions: the preview plugin, and what the panel shows. */
+export interface TickmarkApi {
+  extendMarkdownIt(md: MarkdownIt): MarkdownIt;
+  readonly waveformPanel: PanelEvents;
+}
+
+export function activate(context: vscode.ExtensionContext): TickmarkApi {
   const logger = createLogger();
   const store = new AnalysisStore(logger);
+  const waveform = registerWaveform({ store, logger, extensionUri: context.extensionUri });
   context.subscriptions.push(
     logger,
     store,
@@ -20,10 +29,11 @@ export function activate(context: vscode.ExtensionContext): void {
     registerHover({ store }),
     registerCodeActions({ store }),
     registerCommands({ store, logger }),
-    registerWaveform({ store, logger, extensionUri: context.extensionUri }),
+    waveform,
     vscode.workspace.onDidChangeConfiguration((e) => e.affectsConfiguration('tickmark') && store.invalidate()),
   );
   logger.info(`Tickmark ${String(context.extension.packageJSON.version)} active`);
+  return { extendMarkdownIt: (md) => timingPreviewPlugin(md, store), waveformPanel: waveform.events };
 }
 
 export function deactivate(): void {}

@@ -1,12 +1,13 @@
-// The waveform panel beside the editor. It follows the block under the cursor; the drawing itself is the
-// webview script's (media/panel.ts, bundled to out/media/panel.js) from the analysis posted to it.
-import { randomBytes } from 'node:crypto';
+// The waveform panel beside the editor: opened by command or code lens, following the block under the
+// cursor, redrawn (debounced) as the document changes, and restored after a window reload.
 import * as vscode from 'vscode';
-import type { BlockAnalysis } from '../core/types';
+import type { PanelState } from '../media/messages';
 import type { AnalysisStore } from './analysisStore';
 import { commandIds } from './commandIds';
 import { isTimingDocument } from './documents';
 import type { Logger } from './logger';
+import { PanelEvents } from './panel/events';
+import { isPanelState, panelOptions, waveformViewType, WaveformPanel, type PanelDeps } from './panel/panel';
 
 export interface WaveformDeps {
   store: AnalysisStore;
@@ -14,64 +15,81 @@ export interface WaveformDeps {
   extensionUri: vscode.Uri;
 }
 
-export function registerWaveform({ store, logger, extensionUri }: WaveformDeps): vscode.Disposable {
-  let panel: vscode.WebviewPanel | undefined;
+/** Typing settles before a redraw: a keystroke's analysis is cheap, repainting hundreds of points is not. */
+const redrawDelayMs = 150;
 
-  const post = (block: BlockAnalysis | undefined): void => {
-    void panel?.webview.postMessage({ type: 'block', name: block?.name, circuit: block?.circuit, values: block?.values ?? {}, spread: block?.spread ?? {} });
-    if (panel && block) panel.title = `Waveform: ${block.name}`;
+export interface WaveformFeature extends vscode.Disposable {
+  readonly events: PanelEvents;
+}
+
+export function registerWaveform({ store, logger, extensionUri }: WaveformDeps): WaveformFeature {
+  const events = new PanelEvents();
+  const deps: PanelDeps = { store, logger, extensionUri, events };
+  let current: WaveformPanel | undefined;
+  let timer: ReturnType<typeof setTimeout> | undefined;
+
+  const adopt = (webviewPanel: vscode.WebviewPanel): WaveformPanel => {
+    const panel = new WaveformPanel(webviewPanel, deps);
+    webviewPanel.onDidDispose(() => {
+      if (current === panel) current = undefined;
+    });
+    current = panel;
+    return panel;
   };
 
   const show = async (uri?: vscode.Uri, name?: string): Promise<boolean> => {
-    const doc = uri ? await vscode.workspace.openTextDocument(uri) : vscode.window.activeTextEditor?.document;
-    if (!doc || !isTimingDocument(doc)) return false;
-    const analysis = store.analysisOf(doc);
     const editor = vscode.window.activeTextEditor;
+    const doc = uri instanceof vscode.Uri ? await vscode.workspace.openTextDocument(uri) : editor?.document;
+    if (!doc || !isTimingDocument(doc)) return false;
+    const blocks = store.analysisOf(doc).blocks;
     const block =
-      analysis.blocks.find((b) => b.name === name) ??
+      (typeof name === 'string' ? blocks.find((b) => b.name === name) : undefined) ??
       (editor?.document === doc ? store.blockAt(doc, editor.selection.active) : undefined) ??
-      analysis.blocks[0];
-    if (!panel) {
-      panel = vscode.window.createWebviewPanel('tickmark.waveform', 'Waveform', { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, {
-        enableScripts: true,
-        localResourceRoots: [vscode.Uri.joinPath(extensionUri, 'media'), vscode.Uri.joinPath(extensionUri, 'out', 'media')],
-      });
-      panel.webview.html = panelHtml(panel.webview, extensionUri);
-      panel.onDidDispose(() => (panel = undefined));
+      blocks[0];
+    if (!block) return false;
+    if (current) current.panel.reveal(undefined, true);
+    else {
+      const column = { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true };
+      adopt(vscode.window.createWebviewPanel(waveformViewType, `Waveform: ${block.name}`, column, panelOptions(extensionUri)));
       logger.info('waveform panel opened');
-    } else {
-      panel.reveal(undefined, true);
     }
-    post(block);
+    current!.show({ uri: doc.uri, block: block.name });
     return true;
   };
 
   const follow = (editor: vscode.TextEditor): void => {
-    if (!panel || !isTimingDocument(editor.document)) return;
+    if (!current || !isTimingDocument(editor.document)) return;
     const block = store.blockAt(editor.document, editor.selection.active);
-    if (block) post(block);
+    const target = current.target;
+    if (!block || (target && target.block === block.name && target.uri.toString() === editor.document.uri.toString())) return;
+    current.show({ uri: editor.document.uri, block: block.name });
   };
 
-  return vscode.Disposable.from(
+  const redrawSoon = (): void => {
+    if (!current) return;
+    clearTimeout(timer);
+    timer = setTimeout(() => current?.refresh(), redrawDelayMs);
+  };
+
+  const serializer: vscode.WebviewPanelSerializer<PanelState> = {
+    async deserializeWebviewPanel(webviewPanel, state) {
+      current?.dispose();
+      const panel = adopt(webviewPanel);
+      if (isPanelState(state)) panel.show({ uri: vscode.Uri.parse(state.uri), block: state.block });
+      else panel.refresh();
+    },
+  };
+
+  const disposables = vscode.Disposable.from(
+    events,
     vscode.commands.registerCommand(commandIds.showWaveform, show),
+    vscode.window.registerWebviewPanelSerializer(waveformViewType, serializer),
     vscode.window.onDidChangeTextEditorSelection((e) => follow(e.textEditor)),
     vscode.workspace.onDidChangeTextDocument((e) => {
-      const editor = vscode.window.activeTextEditor;
-      if (editor && e.document === editor.document) follow(editor);
+      if (current?.target && e.document.uri.toString() === current.target.uri.toString()) redrawSoon();
     }),
-    { dispose: () => panel?.dispose() },
+    store.onDidInvalidate(redrawSoon),
+    { dispose: () => (clearTimeout(timer), current?.dispose()) },
   );
-}
-
-function panelHtml(webview: vscode.Webview, extensionUri: vscode.Uri): string {
-  const nonce = randomBytes(16).toString('base64');
-  const script = webview.asWebviewUri(vscode.Uri.joinPath(extensionUri, 'out', 'media', 'panel.js'));
-  return `<!DOCTYPE html>
-<html lang="en"><head><meta charset="utf-8">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; img-src ${webview.cspSource} data:; style-src ${webview.cspSource} 'nonce-${nonce}'; script-src 'nonce-${nonce}';">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<style nonce="${nonce}">body { color: var(--vscode-foreground); background: var(--vscode-editor-background); font-family: var(--vscode-font-family); }</style>
-</head><body><main id="tickmark-waveform" aria-live="polite"></main>
-<script type="module" nonce="${nonce}" src="${script}"></script>
-</body></html>`;
+  return { events, dispose: () => disposables.dispose() };
 }
