@@ -1,5 +1,6 @@
 // The one adapter from core offsets (0-based UTF-16 code units, half-open) to editor ranges and back.
 import * as vscode from 'vscode';
+import { lineOf, lineStarts } from '../core/scan/lines';
 import type { Span } from '../core/types';
 
 /** Anything that maps offsets to positions: an open document, or text read from disk. */
@@ -27,26 +28,11 @@ export function spansOverlap(a: Span, b: Span): boolean {
 
 /** Offsets of a file that is not open, with the editor's line rules (\n, \r\n and lone \r end a line). */
 export function textMapper(text: string): OffsetMapper {
-  const starts = [0];
-  for (let i = 0; i < text.length; i++) {
-    const ch = text.charCodeAt(i);
-    if (ch === 13 && text.charCodeAt(i + 1) === 10) i++;
-    if (ch === 13 || ch === 10) starts.push(i + 1);
-  }
-  const lineOf = (offset: number): number => {
-    let low = 0;
-    let high = starts.length - 1;
-    while (low < high) {
-      const mid = (low + high + 1) >> 1;
-      if (starts[mid] <= offset) low = mid;
-      else high = mid - 1;
-    }
-    return low;
-  };
+  const starts = lineStarts(text);
   return {
     positionAt(offset) {
       const clamped = Math.max(0, Math.min(offset, text.length));
-      const line = lineOf(clamped);
+      const line = lineOf(starts, clamped);
       return new vscode.Position(line, clamped - starts[line]);
     },
     offsetAt(position) {
