@@ -46,10 +46,8 @@ export function checkPositive(input: ModelInput, keys: readonly string[], issues
   let ok = true;
   for (const key of keys) {
     const value = input.values[key];
-    if (value === undefined || !Number.isFinite(value)) {
-      issues.push({ key, message: `\`${key}\` needs a finite value` });
-      ok = false;
-    } else if (value <= 0) {
+    if (!checkFinite(input, [key], issues)) ok = false;
+    else if (value <= 0) {
       issues.push({ key, message: `\`${key}\` must be greater than zero (got ${eng(value)})` });
       ok = false;
     }
