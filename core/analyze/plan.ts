@@ -112,7 +112,8 @@ export function buildPlan(raw: RawBlock, model: CircuitModel, source: Identifier
       continue;
     }
     const parsed = parseValue(entry.valueText, entry.valueSpan.start);
-    plan.findings.push(...parsed.findings);
+    // A value the parser refuses (`1e400` out of range) is still the key's problem: the message names it.
+    plan.findings.push(...parsed.findings.map((f) => (f.severity === 'error' && !f.message.includes(`\`${entry.key}\``) ? { ...f, message: `\`${entry.key}\`: ${f.message}` } : f)));
     if (parsed.unknown) {
       plan.unknowns.push({ key: spec.key, spec, entry, span: parsed.unknown });
       continue;
