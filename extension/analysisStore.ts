@@ -58,10 +58,19 @@ export class AnalysisStore implements vscode.Disposable {
     this.changed.dispose();
   }
 
+  /** A file's text that is not open in the editor (the workspace check); not cached. */
+  analyzeText(uri: vscode.Uri, text: string, languageId: string): DocumentAnalysis {
+    return this.guarded(uri, () => analyzeDocument({ uri: coreUriOf(uri), text, languageId }, analyzeOptionsFor(uri, readSettings(uri))));
+  }
+
   private compute(doc: vscode.TextDocument): DocumentAnalysis {
-    const uri = coreUriOf(doc.uri);
+    return this.guarded(doc.uri, () => analyzeDocument(toDocumentLike(doc), analyzeOptionsFor(doc.uri, readSettings(doc.uri))));
+  }
+
+  private guarded(editorUri: vscode.Uri, analyze: () => DocumentAnalysis): DocumentAnalysis {
+    const uri = coreUriOf(editorUri);
     try {
-      return analyzeDocument(toDocumentLike(doc), analyzeOptionsFor(doc, readSettings(doc.uri)));
+      return analyze();
     } catch (cause) {
       // The core promises findings, not exceptions; if one escapes, say so at the top of the file.
       this.logger.error(`analysis of ${uri} failed`, cause);

@@ -28,6 +28,6 @@ export function registerCodeLens({ store }: { store: AnalysisStore }): vscode.Di
     changed,
     vscode.languages.registerCodeLensProvider(timingSelector, provider),
     store.onDidInvalidate(() => changed.fire()),
-    vscode.workspace.onDidChangeConfiguration((e) => e.affectsConfiguration('tickmark.lens') && changed.fire()),
+    vscode.workspace.onDidChangeConfiguration((e) => (e.affectsConfiguration('tickmark.lens') || e.affectsConfiguration('editor.codeLens')) && changed.fire()),
   );
 }

@@ -5,6 +5,8 @@ import type { AnalysisStore } from './analysisStore';
 import { isTimingDocument } from './documents';
 import { placedFindings, toDiagnostic } from './findings';
 import type { Logger } from './logger';
+import { textMapper, type OffsetMapper } from './ranges';
+import type { DocumentAnalysis } from '../core/types';
 
 export interface DiagnosticsDeps {
   store: AnalysisStore;
@@ -13,14 +15,38 @@ export interface DiagnosticsDeps {
   debounceMs?: number;
 }
 
-export function registerDiagnostics({ store, logger, debounceMs = 250 }: DiagnosticsDeps): vscode.Disposable {
+/** The Problems list as other features fill it: an open document, or a file the workspace check read from disk. */
+export interface DiagnosticsHandle extends vscode.Disposable {
+  publish(doc: vscode.TextDocument): void;
+  publishFromDisk(uri: vscode.Uri, mapper: OffsetMapper, analysis: DocumentAnalysis): void;
+}
+
+export function registerDiagnostics({ store, logger, debounceMs = 250 }: DiagnosticsDeps): DiagnosticsHandle {
   const collection = vscode.languages.createDiagnosticCollection('tickmark');
   const pending = new Map<string, NodeJS.Timeout>();
+  // Files the workspace check reported without opening them: closing their editor re-reads the disk
+  // instead of clearing their problems.
+  const fromDisk = new Set<string>();
 
   const publish = (doc: vscode.TextDocument): void => {
     if (doc.isClosed || !isTimingDocument(doc)) return;
     const analysis = store.analysisOf(doc);
     collection.set(doc.uri, placedFindings(analysis).map((placed) => toDiagnostic(doc, placed)));
+  };
+
+  const publishFromDisk = (uri: vscode.Uri, mapper: OffsetMapper, analysis: DocumentAnalysis): void => {
+    fromDisk.add(uri.toString());
+    const target = { uri, positionAt: mapper.positionAt, offsetAt: mapper.offsetAt };
+    collection.set(uri, placedFindings(analysis).map((placed) => toDiagnostic(target, placed)));
+  };
+
+  const recheckFromDisk = async (doc: vscode.TextDocument): Promise<void> => {
+    try {
+      const text = new TextDecoder('utf-8').decode(await vscode.workspace.fs.readFile(doc.uri));
+      publishFromDisk(doc.uri, textMapper(text), store.analyzeText(doc.uri, text, doc.languageId));
+    } catch {
+      collection.delete(doc.uri);
+    }
   };
 
   const schedule = (doc: vscode.TextDocument): void => {
@@ -53,7 +79,7 @@ export function registerDiagnostics({ store, logger, debounceMs = 250 }: Diagnos
   const publishAll = (): void => vscode.workspace.textDocuments.forEach(publish);
 
   publishAll();
-  return vscode.Disposable.from(
+  const subscriptions = vscode.Disposable.from(
     collection,
     vscode.workspace.onDidOpenTextDocument(publish),
     vscode.workspace.onDidChangeTextDocument((event) => {
@@ -65,12 +91,14 @@ export function registerDiagnostics({ store, logger, debounceMs = 250 }: Diagnos
     vscode.workspace.onDidCloseTextDocument((doc) => {
       clearTimeout(pending.get(doc.uri.toString()));
       pending.delete(doc.uri.toString());
-      collection.delete(doc.uri);
       store.forget(doc.uri);
+      if (fromDisk.has(doc.uri.toString()) && doc.uri.scheme === 'file') void recheckFromDisk(doc);
+      else collection.delete(doc.uri);
     }),
     store.onDidInvalidate(() => {
       for (const doc of vscode.workspace.textDocuments) if (isTimingDocument(doc)) schedule(doc);
     }),
     { dispose: () => pending.forEach((timer) => clearTimeout(timer)) },
   );
+  return { publish, publishFromDisk, dispose: () => subscriptions.dispose() };
 }

@@ -19,3 +19,10 @@ export function circuitModel(id: string | undefined): CircuitModel | undefined {
 export function circuitNames(): string[] {
   return circuits.map((model) => model.id);
 }
+export { blockCompletions, type CompletionEntry } from '../core/present/completion';
+export { blockTemplate, type TemplateLine } from '../core/present/template';
+
+/** Circuit ids with their titles and summaries, for the insert command's quick pick. */
+export function circuitChoices(): Array<{ id: string; title: string; summary: string }> {
+  return circuits.map(({ id, title, summary }) => ({ id, title, summary }));
+}

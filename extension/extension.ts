@@ -4,6 +4,7 @@ import { AnalysisStore } from './analysisStore';
 import { registerCodeActions } from './codeActions';
 import { registerCodeLens } from './codeLens';
 import { registerCommands } from './commands';
+import { registerCompletion } from './completion';
 import { registerDiagnostics } from './diagnostics';
 import { registerHover } from './hover';
 import { createLogger } from './logger';
@@ -20,15 +21,17 @@ export interface TickmarkApi {
 export function activate(context: vscode.ExtensionContext): TickmarkApi {
   const logger = createLogger();
   const store = new AnalysisStore(logger);
+  const problems = registerDiagnostics({ store, logger });
   const waveform = registerWaveform({ store, logger, extensionUri: context.extensionUri });
   context.subscriptions.push(
     logger,
     store,
-    registerDiagnostics({ store, logger }),
+    problems,
     registerCodeLens({ store }),
     registerHover({ store }),
     registerCodeActions({ store }),
-    registerCommands({ store, logger }),
+    registerCommands({ store, problems, logger }),
+    registerCompletion(),
     waveform,
     vscode.workspace.onDidChangeConfiguration((e) => e.affectsConfiguration('tickmark') && store.invalidate()),
   );

@@ -25,7 +25,10 @@ const severities: Record<Severity, vscode.DiagnosticSeverity> = {
   info: vscode.DiagnosticSeverity.Information,
 };
 
-export function toDiagnostic(doc: vscode.TextDocument, { finding, block }: PlacedFinding): vscode.Diagnostic {
+/** An open document, or a file read from disk with its offsets (the workspace check). */
+export type DiagnosticTarget = OffsetMapper & { readonly uri: vscode.Uri };
+
+export function toDiagnostic(doc: DiagnosticTarget, { finding, block }: PlacedFinding): vscode.Diagnostic {
   const elsewhere = finding.uri !== undefined && finding.uri !== coreUriOf(doc.uri);
   const range = elsewhere ? spanToRange(doc, block?.block.headerSpan ?? { start: 0, end: 0 }) : spanToRange(doc, finding.span);
   const diagnostic = new vscode.Diagnostic(range, finding.message, severities[finding.severity]);

@@ -7,9 +7,11 @@ import type { AnalyzeOptions } from './engine';
 import { findOpenDocument } from './documents';
 import type { TickmarkSettings } from './settings';
 
-export function analyzeOptionsFor(doc: vscode.TextDocument, settings: TickmarkSettings): AnalyzeOptions {
+/** `target` is the document (open or read from disk by the workspace check) or its uri. */
+export function analyzeOptionsFor(target: vscode.Uri | { readonly uri: vscode.Uri }, settings: TickmarkSettings): AnalyzeOptions {
+  const uri = target instanceof vscode.Uri ? target : target.uri;
   const roots = (vscode.workspace.workspaceFolders ?? []).filter((f) => f.uri.scheme === 'file').map((f) => f.uri.fsPath);
-  const ownRoot = vscode.workspace.getWorkspaceFolder(doc.uri);
+  const ownRoot = vscode.workspace.getWorkspaceFolder(uri);
   const base = ownRoot?.uri.scheme === 'file' ? ownRoot.uri.fsPath : roots[0];
   const maxFileBytes = settings.maxSizeKB * 1024;
   return {

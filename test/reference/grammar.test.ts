@@ -5,7 +5,7 @@ import { strict as assert } from 'assert';
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import * as oniguruma from 'vscode-oniguruma';
-import { INITIAL, parseRawGrammar, Registry, type IGrammar, type StateStack } from 'vscode-textmate';
+import { INITIAL, parseRawGrammar, Registry, type IGrammar, type IOnigLib, type StateStack } from 'vscode-textmate';
 
 const root = path.resolve(__dirname, '..', '..');
 const pkg = JSON.parse(fs.readFileSync(path.join(root, 'package.json'), 'utf8'));
@@ -28,12 +28,12 @@ const stubs: Record<string, object> = {
   },
 };
 
-let onigReady: Promise<oniguruma.IOnigLib> | undefined;
-function onigLib(): Promise<oniguruma.IOnigLib> {
+let onigReady: Promise<IOnigLib> | undefined;
+function onigLib(): Promise<IOnigLib> {
   onigReady ??= (async () => {
     const wasm = fs.readFileSync(require.resolve('vscode-oniguruma/release/onig.wasm'));
     await oniguruma.loadWASM(wasm.buffer.slice(wasm.byteOffset, wasm.byteOffset + wasm.byteLength));
-    return { createOnigScanner: (sources) => new oniguruma.OnigScanner(sources), createOnigString: (text) => new oniguruma.OnigString(text) };
+    return { createOnigScanner: (sources: string[]) => new oniguruma.OnigScanner(sources), createOnigString: (text: string) => new oniguruma.OnigString(text) };
   })();
   return onigReady;
 }

@@ -2,6 +2,8 @@
 // @vscode/test-electron elsewhere). All tests are registered first, then run once.
 import Mocha from 'mocha';
 import { activationTests } from './activation.test';
+import { commandTests } from './commands.test';
+import { completionTests } from './completion.test';
 import { diagnosticsTests } from './diagnostics.test';
 import { hoverTests } from './hover.test';
 import { lensTests } from './lens.test';
@@ -17,6 +19,8 @@ export function run(): Promise<void> {
   hoverTests();
   diagnosticsTests();
   panelTests();
+  completionTests();
+  commandTests();
   return new Promise((resolve, reject) => {
     mocha.run((failures) => (failures > 0 ? reject(new Error(`${failures} editor test(s) failed`)) : resolve()));
   });
