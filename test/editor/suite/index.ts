@@ -8,6 +8,8 @@ import { diagnosticsTests } from './diagnostics.test';
 import { hoverTests } from './hover.test';
 import { lensTests } from './lens.test';
 import { panelTests } from './panel.test';
+import { panelHtmlTests } from './panelHtml.test';
+import { previewTests } from './preview.test';
 import { rangeTests } from './ranges.test';
 
 export function run(): Promise<void> {
@@ -19,6 +21,8 @@ export function run(): Promise<void> {
   hoverTests();
   diagnosticsTests();
   panelTests();
+  panelHtmlTests();
+  previewTests();
   completionTests();
   commandTests();
   return new Promise((resolve, reject) => {
