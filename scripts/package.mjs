@@ -16,7 +16,7 @@ run(process.execPath, ['scripts/build.mjs', '--release']);
 // links to DEVELOPERS.md into web links; they stay relative (they resolve in the source tree).
 try {
   run(process.execPath, [path.join(projectRoot, 'node_modules', '@vscode', 'vsce', 'vsce'), 'package', '--no-dependencies',
-    '--allow-missing-repository', '--skip-license', '--no-rewrite-relative-links', '--out', vsix]);
+    '--allow-missing-repository', '--no-rewrite-relative-links', '--out', vsix]);
 } catch {
   process.exit(1);
 }
