@@ -34,17 +34,24 @@ export function analyzeDocument(doc: TextDocumentLike, options: AnalyzeOptions, 
   }
 }
 
-function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: AnalysisCache | undefined): DocumentAnalysis {
-  const analysis: DocumentAnalysis = { uri: doc.uri, blocks: [], findings: [], dependencies: [] };
-  if (doc.text.length > options.maxFileBytes) {
-    analysis.findings.push({
+/** The one notice for a file above the size setting; the CLI uses it too, before reading such a file. */
+export function tooLargeAnalysis(uri: string, options: Pick<AnalyzeOptions, 'maxFileBytes'>): DocumentAnalysis {
+  return {
+    uri,
+    blocks: [],
+    dependencies: [],
+    findings: [{
       severity: 'info',
       code: Code.fileTooLarge,
       message: `file is larger than tickmark.files.maxSizeKB (${Math.round(options.maxFileBytes / 1024)} KB); its timing blocks are not read`,
       span: { start: 0, end: 0 },
-    });
-    return analysis;
-  }
+    }],
+  };
+}
+
+function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: AnalysisCache | undefined): DocumentAnalysis {
+  const analysis: DocumentAnalysis = { uri: doc.uri, blocks: [], findings: [], dependencies: [] };
+  if (doc.text.length > options.maxFileBytes) return tooLargeAnalysis(doc.uri, options);
   const blocks = scanDocument(doc);
   if (blocks.length === 0) return analysis;
   const starts = lineStarts(doc.text);

@@ -56,6 +56,15 @@ export function readText(file: string, maxBytes: number): string | undefined {
   }
 }
 
+/** Size in bytes, 0 when the file cannot be stat'ed (reading it then reports the problem). */
+export function sizeOf(file: string): number {
+  try {
+    return fs.statSync(file).size;
+  } catch {
+    return 0;
+  }
+}
+
 export function realPath(file: string): string | undefined {
   try {
     return fs.realpathSync(file);

@@ -19,6 +19,11 @@ export const ansiPaint: Paint = {
   bold: (t) => `\x1b[1m${t}\x1b[0m`,
 };
 
+/** Control characters from a document would steer the terminal (ECMA-48 escape sequences): shown as \uXXXX. */
+export function printable(text: string): string {
+  return text.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, (ch) => `\\u${ch.charCodeAt(0).toString(16).padStart(4, '0')}`);
+}
+
 export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): string {
   const lines: string[] = [];
   let blocks = 0;
@@ -26,7 +31,7 @@ export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): 
   const line = (finding: Finding, file: CheckedFile) => {
     const where = locate(finding, file);
     counts[finding.severity]++;
-    return `${displayPath(where.file, cwd)}:${where.line}: ${paint.severity(finding.severity, finding.severity)}: ${finding.message}`;
+    return `${printable(displayPath(where.file, cwd))}:${where.line}: ${paint.severity(finding.severity, finding.severity)}: ${printable(finding.message)}`;
   };
   for (const file of checked) {
     for (const finding of file.analysis.findings) lines.push(line(finding, file));
@@ -34,7 +39,7 @@ export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): 
       blocks++;
       const worst = block.findings.some((f) => f.severity === 'error') ? 'error' : block.findings.some((f) => f.severity === 'warning') ? 'warning' : 'ok';
       const mark = worst === 'ok' ? paint.dim('ok') : paint.severity(worst, worst === 'error' ? 'failed' : 'check');
-      lines.push(`${file.display}:${block.line}: ${paint.bold(block.name)} (${block.circuit ?? 'no circuit'}) ${mark} — ${headline(block)}`);
+      lines.push(`${printable(file.display)}:${block.line}: ${paint.bold(printable(block.name))} (${printable(block.circuit ?? 'no circuit')}) ${mark} — ${printable(headline(block))}`);
       for (const finding of block.findings) lines.push(line(finding, file));
     }
   }

@@ -1,9 +1,9 @@
 // A check over files: each read once, analysed with the same engine the editor uses.
 import * as path from 'node:path';
-import { analyzeDocument, defaultAnalyzeOptions, type AnalyzeOptions } from '../analyze';
+import { analyzeDocument, defaultAnalyzeOptions, tooLargeAnalysis, type AnalyzeOptions } from '../analyze';
 import type { DocumentAnalysis } from '../types';
 import { lineStarts } from '../scan/lines';
-import { languageOf, readText, realPath } from './files';
+import { languageOf, readText, realPath, sizeOf } from './files';
 
 export interface CheckedFile {
   file: string;
@@ -22,7 +22,12 @@ export function cliOptions(overrides: Partial<AnalyzeOptions>): AnalyzeOptions {
 export function checkFiles(files: string[], options: AnalyzeOptions, display: (file: string) => string): CheckedFile[] {
   const checked: CheckedFile[] = [];
   for (const file of files) {
-    const text = readText(file, Number.MAX_SAFE_INTEGER) ?? '';
+    // A file above the size setting is not read at all: one notice, as the editor gives.
+    if (sizeOf(file) > options.maxFileBytes) {
+      checked.push({ file, display: display(file), text: '', starts: [0], analysis: tooLargeAnalysis(file, options) });
+      continue;
+    }
+    const text = readText(file, options.maxFileBytes) ?? '';
     const analysis = analyzeDocument({ uri: file, text, languageId: languageOf(file) }, options);
     if (analysis.blocks.length === 0 && analysis.findings.length === 0) continue;
     checked.push({ file, display: display(file), text, starts: lineStarts(text), analysis });
