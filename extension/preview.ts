@@ -95,10 +95,15 @@ export function renderTimingBlock(md: MarkdownIt, block: PreviewBlock, fence: Ti
   if (block.note) out.push(`<p><em>${esc(block.note)}</em></p>`);
   const wave = analysis ? waveformFor(analysis) : undefined;
   // The core's SVG escapes every text it carries and holds no script or outside reference.
-  if (wave && analysis) out.push(`<div class="tickmark-wave">${renderWaveformSvg(wave, { title: analysis.name, theme: 'currentColor', width: 560 })}</div>`);
+  if (wave && analysis) out.push(`<div class="tickmark-wave">${fluid(renderWaveformSvg(wave, { title: analysis.name, theme: 'currentColor', width: 520, height: 260 }))}</div>`);
   out.push(`<details><summary>block text</summary><pre><code>${esc('```' + fence.info + '\n' + fence.content + '```')}</code></pre></details>`);
   out.push('</div>');
   return out.join('\n');
+}
+
+/** The preview column may be narrower than the drawing: scale it to the width, keeping its aspect (viewBox). */
+function fluid(svg: string): string {
+  return svg.replace(/^<svg ([^>]*?)width="\d+" height="\d+"/, '<svg $1width="100%"');
 }
 
 /** The note being previewed: VS Code's preview puts its URI in markdown-it's env as `currentDocument`. */

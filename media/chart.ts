@@ -7,7 +7,7 @@ import { niceTicks } from '../core/wave/ticks';
 
 const svgNs = 'http://www.w3.org/2000/svg';
 const margin = { left: 64, right: 92, top: 14, bottom: 54 };
-const laneHeight = 150;
+const laneHeight = 170;
 const laneGap = 16;
 
 export interface LaneFrame {

@@ -1,6 +1,6 @@
 // The time and values under the mouse, read from the posted samples rather than from the drawing.
 import type { Trace } from '../core/circuits/model';
-import { tickLabel, timeLabel } from '../core/wave/labels';
+import { tickLabel, timeLabel, unitOf } from '../core/wave/labels';
 import type { ChartGeometry } from './chart';
 
 /**
@@ -23,11 +23,16 @@ export function valueAt(points: ReadonlyArray<[number, number]>, t: number): num
   return Number.isFinite(value) ? value : undefined;
 }
 
+/** A reading keeps its unit at zero too ("0 V"), unlike an axis tick. */
+function reading(value: number, dim: Trace['dim']): string {
+  return value === 0 && unitOf(dim) ? `0 ${unitOf(dim)}` : tickLabel(value, dim);
+}
+
 export function readoutText(traces: readonly Trace[], t: number): string {
-  const parts = [`t = ${timeLabel(t)}`];
+  const parts = [`t = ${t === 0 ? '0 s' : timeLabel(t)}`];
   for (const trace of traces) {
     const value = valueAt(trace.points, t);
-    if (value !== undefined) parts.push(`${trace.name} ${tickLabel(value, trace.dim)}`);
+    if (value !== undefined) parts.push(`${trace.name} ${reading(value, trace.dim)}`);
   }
   return parts.join(' · ');
 }

@@ -1,6 +1,7 @@
 // What a person sees: opens the demo in code-server with this project as a development extension, opens a
 // note, reads the code lens text and a hover from the DOM, and saves screenshots into artifacts/.
-// Exit 0 when the lens shows the RC delay and the hover shows its result, 1 otherwise.
+// Exit 0 when the lens shows the RC delay and the hover shows its result, the waveform panel draws with a
+// readout and the Markdown preview shows the block's table, 1 otherwise.
 import { mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { launchBrowser, log, restoreChanged, runFolder, snapshotFiles, startCodeServer, stopAll, workbenchUrl } from './editor-host.mjs';
@@ -31,6 +32,59 @@ async function pointOfWord(page, word) {
   }, word);
 }
 
+/** Runs a command from the palette by its title. */
+async function runCommand(page, title) {
+  await page.keyboard.press('F1');
+  const input = page.locator('.quick-input-widget input');
+  await input.waitFor({ state: 'visible', timeout: 10_000 });
+  await input.fill(`>${title}`);
+  await page.waitForTimeout(400);
+  await page.keyboard.press('Enter');
+}
+
+/** The webview frame (panels render in nested iframes) that holds `selector`. */
+async function frameWith(page, selector, timeout = 20_000) {
+  const until = Date.now() + timeout;
+  while (Date.now() < until) {
+    for (const frame of page.frames()) {
+      if (await frame.locator(selector).count().catch(() => 0)) return frame;
+    }
+    await page.waitForTimeout(250);
+  }
+  throw new Error(`no webview shows ${selector}`);
+}
+
+// Waveform panel from a code lens click, with the readout under the mouse; then the Markdown preview.
+async function checkPanelAndPreview(page) {
+  const problems = [];
+  await page.getByRole('treeitem', { name: 'heartbeat.md' }).dblclick({ timeout: 30_000 });
+  const lens = page.locator('.monaco-editor .codelens-decoration a').filter({ hasText: 'Hz' }).first();
+  await lens.waitFor({ state: 'visible', timeout: 30_000 });
+  await lens.click();
+  const panel = await frameWith(page, '#chart svg polyline');
+  const plot = panel.locator('#chart svg');
+  const box = await plot.boundingBox();
+  if (box) await plot.hover({ position: { x: box.width * 0.55, y: box.height * 0.4 } });
+  await page.waitForTimeout(500);
+  const readout = await panel.locator('#readout').innerText();
+  const heading = await panel.locator('#block-name').innerText();
+  log(`panel: ${JSON.stringify(heading)}, readout ${JSON.stringify(readout)}`);
+  await page.screenshot({ path: path.join(artifacts, 'editor-panel.png') });
+  if (heading !== 'heartbeat') problems.push(`the panel shows ${JSON.stringify(heading)}, not heartbeat`);
+  if (!/^t = .*s · capacitor .*V · output .*V$/.test(readout)) problems.push(`the readout reads ${JSON.stringify(readout)}`);
+  await runCommand(page, 'View: Close All Editors');
+  await page.getByRole('treeitem', { name: 'power-and-clock.md' }).dblclick({ timeout: 30_000 });
+  await page.waitForSelector('.monaco-editor .codelens-decoration', { timeout: 30_000 });
+  await runCommand(page, 'Markdown: Open Preview to the Side');
+  const preview = await frameWith(page, '.tickmark-block table');
+  await page.waitForTimeout(800);
+  const table = await preview.locator('.tickmark-block table').first().innerText();
+  log(`preview table: ${JSON.stringify(table.slice(0, 200))}`);
+  await page.screenshot({ path: path.join(artifacts, 'editor-preview.png') });
+  if (!expectedDelay.test(table)) problems.push('the preview table does not show 120.4 ms');
+  return problems;
+}
+
 async function check(page) {
   await page.waitForSelector('.monaco-workbench', { timeout: 60_000 });
   await page.getByRole('treeitem', { name: 'notes' }).first().click();
@@ -54,6 +108,7 @@ async function check(page) {
   const problems = [];
   if (!lenses.some((t) => expectedDelay.test(t))) problems.push('no code lens shows 120.4 ms');
   if (!expectedDelay.test(hoverText)) problems.push('the hover does not show 120.4 ms');
+  problems.push(...(await checkPanelAndPreview(page)));
   return problems;
 }
 
