@@ -73,7 +73,7 @@ export function timerSearch(): Row[] {
   const query = { clock: 16e6, mode: 'up' as const, bits: 32, prescalers: { kind: 'range' as const, min: 1, max: 65536 }, measure: 'frequency' as const, target: 3 };
   const found = searchTimerRegisters(query);
   const m = medianMs(21, () => searchTimerRegisters(query));
-  const note = 'error' in found ? found.error : `prescaler ${found.prescaler}, reload ${found.reload}, error ${(found.error * 100).toExponential(2)} %`;
+  const note = 'error' in found ? found.error : `prescaler ${found.values.prescaler}, reload ${found.values.reload}, error ${(found.error * 100).toExponential(2)} %`;
   return [{ figure: '3  timer search 1..65536 × 32-bit, no exact pair', value: ms(m), target: '< 5 ms', met: m < 5, note: `median of 21; ${note}` }];
 }
 
