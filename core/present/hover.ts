@@ -5,7 +5,7 @@ import type { BlockAnalysis } from '../types';
 import type { CircuitModel } from '../circuits/model';
 import { circuitById } from '../circuits/registry';
 import { formatQuantity, formatPercent } from '../format';
-import { bandText, formatResult } from './values';
+import { bandText, formatConstant, formatResult } from './values';
 
 /** Escapes text for Markdown so a block name or value cannot become markup, a link or HTML. */
 export function escapeMarkdown(text: string): string {
@@ -53,7 +53,7 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
   if (analysis.identifiers.length) {
     const lines = analysis.identifiers.map((id) => {
       const where = options.relativeTo ? path.relative(options.relativeTo, id.uri) : path.basename(id.uri);
-      return `- ${code(id.name)} = ${formatQuantity(id.value, '')} — ${escapeMarkdown(where.split(path.sep).join('/'))}:${id.line}`;
+      return `- ${code(id.name)} = ${formatConstant(id.value)} — ${escapeMarkdown(where.split(path.sep).join('/'))}:${id.line}`;
     });
     out.push('**firmware constants**\n' + lines.join('\n'));
   }

@@ -10,7 +10,14 @@ export function formatResult(model: CircuitModel, key: string, value: number): s
   if (spec?.percent) return key === 'error' ? formatSignedPercent(value) : formatPercent(value);
   // Baud rates are read as whole numbers in the trade (9600, 115200), not with prefixes.
   if (key === 'baud') return `${Math.round(value * 10) / 10} baud`;
+  // Counts and register values are whole numbers a firmware engineer compares digit by digit.
+  if (!spec?.dim && Number.isInteger(value) && Math.abs(value) < 1e15) return String(value);
   return formatQuantity(value, spec?.dim ?? '');
+}
+
+/** A firmware constant as the compiler sees it: whole numbers in full, others in engineering form. */
+export function formatConstant(value: number): string {
+  return Number.isInteger(value) && Math.abs(value) < 1e15 ? String(value) : formatQuantity(value, '');
 }
 
 export function resultLabel(model: CircuitModel, key: string): string {
@@ -49,6 +56,8 @@ export function headline(analysis: BlockAnalysis): string {
 export function bandText(model: CircuitModel, key: string, min: number, max: number): string {
   const low = formatResult(model, key, min);
   const high = formatResult(model, key, max);
+  // Signed values (errors) keep both units: `−13.8–+13.7 %` would read as a subtraction.
+  if (/^[−+-]/.test(low) || /^[−+-]/.test(high)) return `${low} … ${high}`;
   const lowParts = low.split(' ');
   const highParts = high.split(' ');
   if (lowParts.length === 2 && highParts.length === 2 && lowParts[1] === highParts[1]) return `${lowParts[0]}–${high}`;
