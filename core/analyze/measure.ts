@@ -21,12 +21,38 @@ export function limitIssues(model: CircuitModel, values: Readonly<Record<string,
   return issues;
 }
 
+const limitedByModel = new WeakMap<CircuitModel, QuantityParam[]>();
+
+/** Whether `limitIssues` would find nothing, without building its messages: computeAt runs per sample. */
+function withinLimits(model: CircuitModel, values: Readonly<Record<string, number>>): boolean {
+  let specs = limitedByModel.get(model);
+  if (!specs) {
+    specs = model.params.filter((p): p is QuantityParam => p.kind === 'quantity');
+    limitedByModel.set(model, specs);
+  }
+  for (let i = 0; i < specs.length; i++) {
+    const spec = specs[i];
+    if (!(spec.key in values)) continue;
+    const value = values[spec.key];
+    if (!Number.isFinite(value)) return false;
+    if (spec.min !== undefined && value < spec.min) return false;
+    if (spec.max !== undefined && value > spec.max) return false;
+    if (spec.integer && !Number.isInteger(value)) return false;
+  }
+  return true;
+}
+
+function hasError(issues: readonly ModelIssue[]): boolean {
+  for (let i = 0; i < issues.length; i++) if ((issues[i].severity ?? 'error') === 'error') return true;
+  return false;
+}
+
 /** Results of one evaluation, or undefined when the inputs break the model (never throws). */
 export function computeAt(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> | undefined {
   const values = evaluateParams(plan, offsets, overrides);
   try {
     const input = modelInput(plan, values);
-    if (limitIssues(plan.model, values).length || plan.model.validate(input).some((i) => (i.severity ?? 'error') === 'error')) return undefined;
+    if (!withinLimits(plan.model, values) || hasError(plan.model.validate(input))) return undefined;
     return finiteOnly(plan.model.compute(input));
   } catch {
     return undefined;

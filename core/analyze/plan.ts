@@ -276,24 +276,51 @@ function quantitySpecs(model: CircuitModel): Map<string, QuantityParam> {
   return specs;
 }
 
+interface Step {
+  key: string;
+  slot?: Slot;
+  spec?: QuantityParam;
+}
+
+interface Replay {
+  steps: Step[];
+  /** Identifier environment shared by every replay, when no block reference can shadow a firmware name. */
+  env?: Record<string, number>;
+}
+
+const replays = new WeakMap<Plan, Replay>();
+
+/** The plan's keys resolved to their slot or default once: evaluateParams runs per Monte Carlo sample. */
+function replayOf(plan: Plan): Replay {
+  let replay = replays.get(plan);
+  if (!replay) {
+    const specs = quantitySpecs(plan.model);
+    const steps = plan.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) }));
+    // A slot's own key spelled as an identifier reads the firmware; another slot may write the same name as a
+    // block reference, so such a plan gets a fresh environment per evaluation.
+    const shadowed = steps.some((s) => s.slot?.blockRefs.some(([name]) => name in plan.externals));
+    replay = { steps, env: shadowed ? undefined : Object.assign(Object.create(null), plan.externals) };
+    replays.set(plan, replay);
+  }
+  return replay;
+}
+
 /** Evaluates every quantity key in plan order; `overrides` replace a key (solved or trial values). */
 export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> {
   const values: Record<string, number> = {};
-  const env: Record<string, number> = Object.assign(Object.create(null), plan.externals);
-  for (const key of plan.order) {
+  const replay = replayOf(plan);
+  const env: Record<string, number> = replay.env ?? Object.assign(Object.create(null), plan.externals);
+  for (const { key, slot, spec } of replay.steps) {
     let value: number;
     if (overrides && key in overrides) value = overrides[key];
-    else {
-      const slot = plan.slots.get(key);
-      if (slot) {
-        for (const [name, ref] of slot.blockRefs) env[name] = values[ref];
-        value = slot.evaluate(env);
-        if (slot.tolerance && offsets && offsets[key]) value = applyTolerance(value, slot.tolerance, offsets[key]);
-      } else {
-        const spec = quantitySpecs(plan.model).get(key);
-        if (!spec || spec.default === undefined) continue;
-        value = typeof spec.default === 'number' ? spec.default : spec.default(values);
-      }
+    else if (slot) {
+      const refs = slot.blockRefs;
+      for (let i = 0; i < refs.length; i++) env[refs[i][0]] = values[refs[i][1]];
+      value = slot.evaluate(env);
+      if (slot.tolerance && offsets && offsets[key]) value = applyTolerance(value, slot.tolerance, offsets[key]);
+    } else {
+      if (!spec || spec.default === undefined) continue;
+      value = typeof spec.default === 'number' ? spec.default : spec.default(values);
     }
     values[key] = value;
   }

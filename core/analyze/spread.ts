@@ -81,31 +81,67 @@ function addShares(plan: Plan, keys: string[], ranges: Record<string, SpreadRang
  */
 export function monteCarlo(plan: Plan, keys: string[], samples: number, seed: number, ranges: Record<string, SpreadRange>, overrides?: Record<string, number>): void {
   const random = mulberry32(seed);
-  const collected: Record<string, Float64Array> = {};
-  const counts: Record<string, number> = {};
+  const collected = new Map<string, { store: Float64Array; count: number }>();
   const offsets: Record<string, number> = {};
   for (let n = 0; n < samples; n++) {
-    for (const key of keys) offsets[key] = random() * 2 - 1;
+    for (let i = 0; i < keys.length; i++) offsets[keys[i]] = random() * 2 - 1;
     const results = computeAt(plan, offsets, overrides);
     if (!results) continue;
     for (const key in results) {
-      const store = (collected[key] ??= new Float64Array(samples));
-      store[(counts[key] = (counts[key] ?? 0) + 1) - 1] = results[key];
+      let column = collected.get(key);
+      if (!column) collected.set(key, (column = { store: new Float64Array(samples), count: 0 }));
+      column.store[column.count++] = results[key];
     }
   }
-  for (const [key, store] of Object.entries(collected)) {
-    const sorted = store.subarray(0, counts[key]).sort();
-    if (!ranges[key] || sorted.length === 0) continue;
-    ranges[key].p1 = percentile(sorted, 0.01);
-    ranges[key].p99 = percentile(sorted, 0.99);
+  for (const [key, { store, count }] of collected) {
+    if (!ranges[key] || count === 0) continue;
+    const values = store.subarray(0, count);
+    ranges[key].p1 = percentile(values, 0.01);
+    ranges[key].p99 = percentile(values, 0.99);
   }
 }
 
-function percentile(sorted: Float64Array, p: number): number {
-  const position = (sorted.length - 1) * p;
+/** Linear interpolation between the order statistics around p, found by selection instead of a full sort. */
+function percentile(values: Float64Array, p: number): number {
+  const position = (values.length - 1) * p;
   const low = Math.floor(position);
-  const high = Math.min(low + 1, sorted.length - 1);
-  return sorted[low] + (sorted[high] - sorted[low]) * (position - low);
+  const high = Math.min(low + 1, values.length - 1);
+  const below = select(values, low);
+  let above = below;
+  // After selecting rank `low`, everything past it is at least as large: the next rank is their minimum.
+  if (high > low) {
+    above = values[high];
+    for (let i = high + 1; i < values.length; i++) if (values[i] < above) above = values[i];
+  }
+  return below + (above - below) * (position - low);
+}
+
+/** The value of rank k (0-based) of finite numbers, reordering `values` in place (Hoare's quickselect). */
+function select(values: Float64Array, k: number): number {
+  let left = 0;
+  let right = values.length - 1;
+  while (right > left) {
+    const pivot = median3(values[left], values[(left + right) >> 1], values[right]);
+    let i = left;
+    let j = right;
+    while (i <= j) {
+      while (values[i] < pivot) i++;
+      while (values[j] > pivot) j--;
+      if (i <= j) {
+        const t = values[i];
+        values[i++] = values[j];
+        values[j--] = t;
+      }
+    }
+    if (k <= j) right = j;
+    else if (k >= i) left = i;
+    else break;
+  }
+  return values[k];
+}
+
+function median3(a: number, b: number, c: number): number {
+  return a < b ? (b < c ? b : a < c ? c : a) : a < c ? a : b < c ? c : b;
 }
 
 /** A small seeded generator so a block's Monte Carlo figures are the same on every run (mulberry32). */
