@@ -78,7 +78,8 @@ export function registerDiagnostics({ store, logger, debounceMs = 250 }: Diagnos
 
   const publishAll = (): void => vscode.workspace.textDocuments.forEach(publish);
 
-  publishAll();
+  // Just after activation, not inside it: activating only registers, the engine loads on this first check.
+  const initial = setTimeout(publishAll, 0);
   const subscriptions = vscode.Disposable.from(
     collection,
     vscode.workspace.onDidOpenTextDocument(publish),
@@ -98,7 +99,7 @@ export function registerDiagnostics({ store, logger, debounceMs = 250 }: Diagnos
     store.onDidInvalidate(() => {
       for (const doc of vscode.workspace.textDocuments) if (isTimingDocument(doc)) schedule(doc);
     }),
-    { dispose: () => pending.forEach((timer) => clearTimeout(timer)) },
+    { dispose: () => [initial, ...pending.values()].forEach((timer) => clearTimeout(timer)) },
   );
   return { publish, publishFromDisk, dispose: () => subscriptions.dispose() };
 }

@@ -1,4 +1,6 @@
 // Entry point: wires the features together; each registers itself and returns a Disposable.
+// Nothing here loads the core engine: extension/engine.ts requires it on the first analysis.
+import { moduleLoadStart } from './activationClock';
 import * as vscode from 'vscode';
 import { AnalysisStore } from './analysisStore';
 import { registerCodeActions } from './codeActions';
@@ -7,6 +9,8 @@ import { registerCommands } from './commands';
 import { registerCompletion } from './completion';
 import { registerDiagnostics } from './diagnostics';
 import { registerHover } from './hover';
+import { engineLoadState } from './engine';
+import { registerInternalCommands, type ActivationMarks } from './internalCommands';
 import { createLogger } from './logger';
 import { timingPreviewPlugin, type MarkdownIt } from './preview';
 import { registerWaveform } from './waveform';
@@ -18,7 +22,12 @@ export interface TickmarkApi {
   readonly waveformPanel: PanelEvents;
 }
 
+// Every import above has run by now: the code-loading share of activation ends here.
+const moduleLoadEnd = performance.now();
+let marks: ActivationMarks | undefined;
+
 export function activate(context: vscode.ExtensionContext): TickmarkApi {
+  const activateStart = performance.now();
   const logger = createLogger();
   const store = new AnalysisStore(logger);
   const problems = registerDiagnostics({ store, logger });
@@ -33,9 +42,11 @@ export function activate(context: vscode.ExtensionContext): TickmarkApi {
     registerCommands({ store, problems, logger }),
     registerCompletion(),
     waveform,
+    registerInternalCommands(store, () => marks),
     vscode.workspace.onDidChangeConfiguration((e) => e.affectsConfiguration('tickmark') && store.invalidate()),
   );
   logger.info(`Tickmark ${String(context.extension.packageJSON.version)} active`);
+  marks = { moduleLoadStart, moduleLoadEnd, activateStart, activateEnd: performance.now(), engineLoadedAtActivation: engineLoadState().loaded };
   return { extendMarkdownIt: (md) => timingPreviewPlugin(md, store), waveformPanel: waveform.events };
 }
 

@@ -18,6 +18,16 @@ const common = {
   absWorkingDir: root,
 };
 
+// extension/engine.ts requires './engineCore' on first use; in the extension bundle that require stays a
+// runtime load of out/engine.js (cjs has no code splitting in esbuild), so activation parses no core code.
+const lazyEngine = {
+  name: 'lazy-engine',
+  setup(build) {
+    build.onResolve({ filter: /^\.\/engineCore$/ }, (args) =>
+      path.resolve(args.resolveDir) === at('extension') ? { path: './engine.js', external: true } : undefined);
+  },
+};
+
 /** @type {esbuild.BuildOptions[]} */
 const targets = [
   {
@@ -28,6 +38,15 @@ const targets = [
     platform: 'node',
     target: 'node20',
     external: ['vscode'],
+    plugins: [lazyEngine],
+  },
+  {
+    ...common,
+    entryPoints: [at('extension/engineCore.ts')],
+    outfile: at('out/engine.js'),
+    format: 'cjs',
+    platform: 'node',
+    target: 'node20',
   },
 ];
 

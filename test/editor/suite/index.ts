@@ -2,6 +2,7 @@
 // @vscode/test-electron elsewhere). All tests are registered first, then run once.
 import Mocha from 'mocha';
 import { activationTests } from './activation.test';
+import { activationCacheTests } from './activationCache.test';
 import { commandTests } from './commands.test';
 import { completionTests } from './completion.test';
 import { diagnosticsTests } from './diagnostics.test';
@@ -16,6 +17,7 @@ export function run(): Promise<void> {
   const mocha = new Mocha({ ui: 'bdd', color: false, reporter: 'spec', timeout: 30_000 });
   mocha.suite.emit('pre-require', globalThis, 'tickmark-editor-suite', mocha);
   activationTests();
+  activationCacheTests();
   rangeTests();
   lensTests();
   hoverTests();
