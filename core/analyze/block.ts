@@ -1,7 +1,8 @@
 // One block from scanned text to every number the engine can say about it.
-import type { BlockAnalysis, Finding, RawBlock, SolvedPart } from '../types';
+import type { BlockAnalysis, BlockEntry, Finding, RawBlock, SolvedPart } from '../types';
 import type { CircuitModel } from '../circuits/model';
 import { circuitById, circuits } from '../circuits/registry';
+import { isSafetyName, safetyCaution } from '../circuits/common';
 import { compileValue, parseValue } from '../value';
 import { Code } from '../codes';
 import type { AnalyzeOptions, DataModelName, IdentifierSource } from './context';
@@ -84,7 +85,10 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   if (blocked() || plan.unknowns.some((u) => !(u.key in overrides))) return analysis;
 
   const input = modelInput(plan, params);
-  const issues = [...limitIssues(model, params), ...safeValidate(model, input)];
+  // The parameter table's limits speak first; the model's own check of the same key would only repeat them.
+  const limits = limitIssues(model, params);
+  const flagged = new Set(limits.map((i) => i.key));
+  const issues = [...limits, ...safeValidate(model, input).filter((i) => !flagged.has(i.key))];
   for (const issue of issues) {
     const entry = entries.get(issue.key);
     // Every physics finding names its key, even where the model's sentence speaks in the trade's words.
@@ -113,7 +117,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     checkClaims(analysis, plan, claims, overrides, context, findings);
   }
 
-  for (const caution of safeCautions(model, input)) {
+  for (const caution of blockCautions(model, input, raw, entries, findings)) {
     findings.push({ severity: 'info', code: Code.caution, message: caution, span: raw.headerSpan });
   }
   return analysis;
@@ -133,6 +137,22 @@ function safeCautions(model: CircuitModel, input: ReturnType<typeof modelInput>)
   } catch {
     return [];
   }
+}
+
+/**
+ * The model's cautions, plus the safety-timing caution for any circuit whose name says it guards something
+ * (`watchdog`, `por-delay`, `interlock` …) or whose block says `safety: yes`; `safety: no` silences that one.
+ */
+function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>, raw: RawBlock, entries: Map<string, BlockEntry>, findings: Finding[]): string[] {
+  const cautions = safeCautions(model, input).filter((c) => c !== safetyCaution);
+  const entry = entries.get('safety');
+  let safety = isSafetyName(raw.name);
+  if (entry) {
+    const word = entry.valueText.trim().toLowerCase();
+    if (word === 'yes' || word === 'no') safety = word === 'yes';
+    else findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`safety\` takes \`yes\` or \`no\`, not \`${entry.valueText}\``, span: entry.valueSpan });
+  }
+  return safety ? [safetyCaution, ...cautions] : cautions;
 }
 
 function integerMeta(entry: { valueText: string; valueSpan: { start: number; end: number }; key: string } | undefined, findings: Finding[], min: number, max: number): number | undefined {

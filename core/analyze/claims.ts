@@ -4,6 +4,7 @@ import type { CircuitModel } from '../circuits/model';
 import { compileValue, dimOf, parseValue, splitList } from '../value';
 import { Code } from '../codes';
 import { measureFor } from './measure';
+import { describeDim, toleranceMismatch } from './plan';
 
 export interface Claim {
   measure: string;
@@ -39,6 +40,11 @@ export function parseClaims(entry: BlockEntry, model: CircuitModel, defaultToler
     const dim = dimOf(parsed.expr, () => undefined);
     if ('finding' in dim) {
       findings.push(dim.finding);
+      continue;
+    }
+    const toleranceProblem = dim.dim === '' ? undefined : toleranceMismatch(parsed.tolerance, parsed.toleranceDim, dim.dim, entry.key, `${describeDim(dim.dim)} here`);
+    if (toleranceProblem) {
+      findings.push({ severity: 'error', code: Code.valueTolerance, message: toleranceProblem, span: parsed.toleranceSpan ?? span });
       continue;
     }
     const measure = dim.dim === '' ? undefined : measureFor(model, dim.dim);

@@ -27,7 +27,8 @@ export const defaultAnalyzeOptions: Omit<AnalyzeOptions, 'read'> = {
   dataModel: 'ilp32',
   includeDirs: [],
   workspaceRoots: [],
-  maxFileBytes: 2_000_000,
+  // 1024 KB, the editor setting's default (tickmark.files.maxSizeKB), so the CLI and the editor agree.
+  maxFileBytes: 1024 * 1024,
 };
 
 /** An outside identifier as the block sees it: a plain number and where it was defined. */

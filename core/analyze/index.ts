@@ -41,17 +41,25 @@ export function tooLargeAnalysis(uri: string, options: Pick<AnalyzeOptions, 'max
     blocks: [],
     dependencies: [],
     findings: [{
-      severity: 'info',
+      // A warning, not a note: a check that silently skipped a file must not pass in CI.
+      severity: 'warning',
       code: Code.fileTooLarge,
-      message: `file is larger than tickmark.files.maxSizeKB (${Math.round(options.maxFileBytes / 1024)} KB); its timing blocks are not read`,
+      message: `file is larger than the size limit of ${Math.round(options.maxFileBytes / 1024)} KB (setting tickmark.files.maxSizeKB, CLI --max-size-kb); its timing blocks are not read`,
       span: { start: 0, end: 0 },
     }],
   };
 }
 
+/** The limit is in bytes of UTF-8, as on disk; counting only when characters alone cannot decide. */
+export function isTooLarge(text: string, maxBytes: number): boolean {
+  if (text.length > maxBytes) return true;
+  if (text.length * 3 <= maxBytes) return false;
+  return Buffer.byteLength(text, 'utf8') > maxBytes;
+}
+
 function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: AnalysisCache | undefined): DocumentAnalysis {
   const analysis: DocumentAnalysis = { uri: doc.uri, blocks: [], findings: [], dependencies: [] };
-  if (doc.text.length > options.maxFileBytes) return tooLargeAnalysis(doc.uri, options);
+  if (isTooLarge(doc.text, options.maxFileBytes)) return tooLargeAnalysis(doc.uri, options);
   const blocks = scanDocument(doc);
   if (blocks.length === 0) return analysis;
   const starts = lineStarts(doc.text);

@@ -1,6 +1,6 @@
 // Turns a scanned block into an evaluation plan: each parameter compiled once, replayed many times
 // (nominal, tolerance corners, Monte Carlo samples, solver steps) without parsing again.
-import type { BlockEntry, Finding, RawBlock, ResolvedIdentifier, Span, Tolerance } from '../types';
+import type { BlockEntry, Dim, Finding, RawBlock, ResolvedIdentifier, Span, Tolerance } from '../types';
 import type { CircuitModel, IntegerSet, QuantityParam } from '../circuits/model';
 import { compileValue, dimOf, parseIntegerSet, parseValue, type ValueNode } from '../value';
 import { Code } from '../codes';
@@ -119,6 +119,11 @@ export function buildPlan(raw: RawBlock, model: CircuitModel, source: Identifier
       continue;
     }
     if (!parsed.expr || parsed.findings.some((f) => f.severity === 'error')) continue;
+    const toleranceProblem = toleranceMismatch(parsed.tolerance, parsed.toleranceDim, spec.dim, entry.key, describeDim(spec.dim));
+    if (toleranceProblem) {
+      plan.findings.push(error(Code.valueTolerance, toleranceProblem, parsed.toleranceSpan ?? entry.valueSpan));
+      continue;
+    }
     const slot = compileSlot(plan, spec, entry, parsed.expr, parsed.tolerance, quantityKeys, source, dataModel);
     if (slot) plan.slots.set(spec.key, slot);
   }
@@ -177,6 +182,12 @@ function compileSlot(
   }
   const soleIdentifier = expr.kind === 'ident' && blockRefs.length === 0 ? expr.name : undefined;
   return { key: spec.key, spec, entry, evaluate: compileValue(expr), blockRefs, tolerance, soleIdentifier };
+}
+
+/** An absolute tolerance must be in its value's unit: `r: 10k ±1 V` cannot mean ±1 Ω. */
+export function toleranceMismatch(tolerance: Tolerance | undefined, toleranceDim: Dim | undefined, valueDim: Dim, key: string, valueWords: string): string | undefined {
+  if (tolerance?.kind !== 'absolute' || !toleranceDim || toleranceDim === valueDim) return undefined;
+  return `the tolerance of \`${key}\` is ${describeDim(toleranceDim)}, but \`${key}\` is ${valueWords}: give it in the same unit or as a percentage`;
 }
 
 const dimWords: Record<string, string> = {
@@ -243,7 +254,8 @@ function evaluationOrder(plan: Plan, raw: RawBlock): string[] {
       plan.findings.push(
         error(Code.identifierCycle, `\`${spec.key}\` depends on ${names.map((n) => `\`${n}\``).join(', ')}, which ${names.length > 1 ? 'have' : 'has'} no value (a cycle, or a missing key)`, slot.entry.valueSpan),
       );
-    } else if (!plan.entries.has(spec.key) && !spec.optional) {
+    } else if (!plan.entries.has(spec.key) && !spec.optional && spec.default === undefined) {
+      // A key with a default is only missing when its inputs are, and those are reported themselves.
       plan.findings.push(error(Code.keyRequired, `${plan.model.id} needs \`${spec.key}\` (${spec.label})`, raw.headerSpan));
     }
   }

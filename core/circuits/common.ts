@@ -1,4 +1,5 @@
 // Building blocks shared by the circuit model files: parameter specs, checks, number text, cautions.
+import { formatPercent, formatQuantity } from '../format';
 import type { ModelInput, ModelIssue, QuantityParam, ResultSpec } from './model';
 
 type Defaults = Pick<QuantityParam, 'default' | 'defaultText' | 'solvable' | 'min' | 'max' | 'integer' | 'optional'>;
@@ -70,24 +71,13 @@ export function finiteOnly(results: Record<string, number>): Record<string, numb
 const prefixes: Record<number, string> = { [-15]: 'f', [-12]: 'p', [-9]: 'n', [-6]: 'µ', [-3]: 'm', 0: '', 3: 'k', 6: 'M', 9: 'G', 12: 'T' };
 
 /** Engineering notation (exponent a multiple of 3) with an SI prefix and four significant figures. */
+/** Engineering notation for model messages and working lines: the one formatter of core/format.ts. */
 export function eng(value: number, unit = ''): string {
-  if (!Number.isFinite(value)) return String(value);
-  const space = unit ? ' ' : '';
-  if (value === 0) return `0${space}${unit}`;
-  const exponent = Math.max(-15, Math.min(12, Math.floor(Math.log10(Math.abs(value)) / 3) * 3));
-  let mantissa = value / 10 ** exponent;
-  let text = Number(mantissa.toPrecision(4)).toString();
-  if (Math.abs(Number(text)) >= 1000 && exponent < 12) {
-    mantissa /= 1000;
-    text = Number(mantissa.toPrecision(4)).toString();
-    return `${text}${space}${prefixes[exponent + 3]}${unit}`;
-  }
-  return `${text}${space}${prefixes[exponent]}${unit}`;
+  return formatQuantity(value, unit);
 }
 
-/** A fraction as percent text with sensible digits (0.0016 → "0.16 %"). */
 export function percent(fraction: number): string {
-  return `${Number((fraction * 100).toPrecision(3))} %`;
+  return formatPercent(fraction);
 }
 
 /** The ELV limit for DC (IEC 61140 band I/II boundary, common practice): 60 V. */
@@ -102,12 +92,20 @@ export function voltageCautions(input: ModelInput, keys: readonly string[]): str
   ];
 }
 
-const safetyWords = /watchdog|\bwdt\b|reset|brown-?out|supervis|safety|interlock/i;
+const safetyWords = /watchdog|\bwdt\b|\bwdg\b|reset|\bpor\b|\bnrst\b|brown-?out|supervis|safety|interlock|e-?stop|brake/i;
+
+/** Whether a block's name says its timing guards people or property (watchdog, reset, interlock …). */
+export function isSafetyName(name: string | undefined): boolean {
+  return name !== undefined && safetyWords.test(name.replace(/[-_]/g, ' '));
+}
+
+export const safetyCaution =
+  'Safety-related timing (watchdog, reset, interlock): verify it independently on the built hardware, worst case over ' +
+  'tolerance, temperature and supply, and follow the functional-safety standards and licensed practice that apply.';
 
 /** Timing that guards a system needs checking apart from the arithmetic that set it. */
 export function safetyCautions(input: ModelInput): string[] {
-  if (!input.name || !safetyWords.test(input.name)) return [];
-  return ['Used as watchdog, reset or safety timing: verify it independently (measurement, worst case over tolerance and temperature).'];
+  return isSafetyName(input.name) ? [safetyCaution] : [];
 }
 
 /**

@@ -29,7 +29,7 @@ commands:
 run \`tickmark <command> --help\` for its options
 `;
 
-const checkHelp = `usage: tickmark check [--json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] PATH...
+const checkHelp = `usage: tickmark check [--json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] [--series S] [--max-size-kb N] PATH...
 
 Scans Markdown notes and C/C++ files (folders are walked) for timing blocks, computes each,
 and prints \`file:line: severity: message\` per finding with a one-line summary per block.
@@ -40,6 +40,7 @@ and prints \`file:line: severity: message\` per finding with a one-line summary 
   --include DIR     extra folder for quoted #include (repeatable)
   --data-model M    integer widths for C constants: ilp32 (default), lp64, ip16
   --series S        default series for solved parts: E3 … E192 or none (default E24)
+  --max-size-kb N   files above N KB are not read, with a warning (default 1024)
 
 exit status: 0 nothing wrong, 1 a block has a warning or error, 2 usage error or unreadable path
 `;
@@ -79,6 +80,9 @@ function optionsFrom(args: ParsedArgs, io: Io, paths: string[]): ReturnType<type
   if (!dataModels.includes(dataModel)) return `--data-model takes ${dataModels.join(', ')}, not ${dataModel}`;
   const includeDirs = (args.flags.get('include') ?? []).map((d) => path.resolve(io.cwd, d));
   for (const dir of includeDirs) if (!isFolder(dir)) return `--include ${dir}: no such folder`;
+  const maxSizeText = last(args, 'max-size-kb');
+  const maxSizeKb = maxSizeText === undefined ? 1024 : Number(maxSizeText);
+  if (!Number.isFinite(maxSizeKb) || maxSizeKb <= 0) return `--max-size-kb takes a size in KB greater than 0, not ${maxSizeText}`;
   const series = last(args, 'series') ?? 'E24';
   if (!/^(E(3|6|12|24|48|96|192)|none)$/i.test(series)) return `--series takes E3, E6, E12, E24, E48, E96, E192 or none, not ${series}`;
   return cliOptions({
@@ -87,6 +91,7 @@ function optionsFrom(args: ParsedArgs, io: Io, paths: string[]): ReturnType<type
     includeDirs,
     defaultSeries: series.toUpperCase() === 'NONE' ? 'none' : series.toUpperCase(),
     workspaceRoots: rootsFor(paths, includeDirs, io.cwd),
+    maxFileBytes: Math.round(maxSizeKb * 1024),
   });
 }
 
@@ -99,7 +104,7 @@ function isFolder(dir: string): boolean {
 }
 
 function check(argv: string[], io: Io): number {
-  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, tolerance: { value: true }, include: { value: true }, 'data-model': { value: true }, series: { value: true }, help: { value: false }, h: { value: false } });
+  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, tolerance: { value: true }, include: { value: true }, 'data-model': { value: true }, series: { value: true }, 'max-size-kb': { value: true }, help: { value: false }, h: { value: false } });
   if (args.flags.has('help') || args.flags.has('h')) {
     io.out(checkHelp);
     return 0;
@@ -123,7 +128,8 @@ function check(argv: string[], io: Io): number {
   if (args.flags.has('json')) io.out(jsonReport(checked));
   else if (args.flags.has('sarif')) io.out(sarifReport(checked, io.cwd, version));
   else io.out(humanReport(checked, io.cwd, io.color ? ansiPaint : noPaint));
-  const failing = checked.some((file) => file.analysis.blocks.some((b) => b.findings.some((f) => f.severity !== 'info')));
+  const serious = (findings: { severity: string }[]) => findings.some((f) => f.severity !== 'info');
+  const failing = checked.some((file) => serious(file.analysis.findings) || file.analysis.blocks.some((b) => serious(b.findings)));
   return failing ? 1 : 0;
 }
 

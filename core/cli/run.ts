@@ -1,4 +1,5 @@
 // A check over files: each read once, analysed with the same engine the editor uses.
+import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { analyzeDocument, defaultAnalyzeOptions, tooLargeAnalysis, type AnalyzeOptions } from '../analyze';
 import type { DocumentAnalysis } from '../types';
@@ -37,5 +38,15 @@ export function checkFiles(files: string[], options: AnalyzeOptions, display: (f
 
 /** Workspace roots for a CLI run: the working folder and every folder named on the command line. */
 export function rootsFor(paths: string[], includeDirs: string[], cwd: string): string[] {
-  return [...new Set([cwd, ...paths.map((p) => path.resolve(p)), ...includeDirs.map((d) => path.resolve(d))])];
+  // A file given by itself brings its folder: the header beside it is part of the same project.
+  const folders = paths.map((p) => (isFile(p) ? path.dirname(path.resolve(p)) : path.resolve(p)));
+  return [...new Set([cwd, ...folders, ...includeDirs.map((d) => path.resolve(d))])];
+}
+
+function isFile(file: string): boolean {
+  try {
+    return fs.statSync(file).isFile();
+  } catch {
+    return false;
+  }
 }

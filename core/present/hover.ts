@@ -4,7 +4,8 @@ import * as path from 'node:path';
 import type { BlockAnalysis } from '../types';
 import type { CircuitModel } from '../circuits/model';
 import { circuitById } from '../circuits/registry';
-import { formatQuantity, formatPercent } from '../format';
+import { Code } from '../codes';
+import { formatQuantity, formatSignedPercent } from '../format';
 import { bandText, formatConstant, formatResult } from './values';
 
 /** Escapes text for Markdown so a block name or value cannot become markup, a link or HTML. */
@@ -17,6 +18,16 @@ function code(text: string): string {
   return '`' + text.replace(/`/g, 'ʹ').replace(/\r?\n/g, ' ') + '`';
 }
 
+/**
+ * A finding's message: its `code spans` stay code (nothing inside one renders), the rest is escaped. A message
+ * with an odd number of backticks is escaped whole.
+ */
+export function messageMarkdown(message: string): string {
+  const parts = message.split('`');
+  if (parts.length % 2 === 0) return escapeMarkdown(message);
+  return parts.map((part, i) => (i % 2 ? code(part) : escapeMarkdown(part))).join('');
+}
+
 export interface HoverOptions {
   /** Folder that identifier locations are shown relative to. */
   relativeTo?: string;
@@ -27,7 +38,9 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
   const out: string[] = [];
   out.push(`**${escapeMarkdown(analysis.name)}** — ${model ? escapeMarkdown(model.title) : 'timing block'}`);
   const errors = analysis.findings.filter((f) => f.severity !== 'info');
-  for (const f of errors) out.push(`${f.severity === 'error' ? '⛔' : '⚠️'} ${escapeMarkdown(f.message)}`);
+  for (const f of errors) out.push(`${f.severity === 'error' ? '⛔' : '⚠️'} ${messageMarkdown(f.message)}`);
+  // Cautions stand near the top: a hazardous voltage or a watchdog matters more than the third decimal.
+  for (const f of analysis.findings.filter((f) => f.code === Code.caution)) out.push(`⚠️ **Caution:** ${messageMarkdown(f.message)}`);
   if (!model) return out.join('\n\n');
 
   const keys = Object.keys(analysis.values);
@@ -46,9 +59,10 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
   if (shares) out.push(shares);
   for (const [key, part] of Object.entries(analysis.solved ?? {})) {
     const dim = paramDim(model, key);
-    const exact = part.exact !== undefined ? `exact ${formatQuantity(part.exact, dim)}; ` : '';
-    const error = part.error !== undefined ? ` (${part.error === 0 ? 'exact' : formatPercent(part.error) + ' from target'})` : '';
-    out.push(`**solved** ${code(key)}: ${exact}use ${formatQuantity(part.value, dim)}${part.series ? ` (${part.series})` : ''}${error}`);
+    const show = (value: number) => (dim ? formatQuantity(value, dim) : formatConstant(value));
+    const exact = part.exact !== undefined ? `exact ${show(part.exact)}; ` : '';
+    const error = part.error !== undefined ? ` (${part.error === 0 ? 'exact' : formatSignedPercent(part.error) + ' from target'})` : '';
+    out.push(`**solved** ${code(key)}: ${exact}use ${show(part.value)}${part.series ? ` (${part.series})` : ''}${error}`);
   }
   if (analysis.identifiers.length) {
     const lines = analysis.identifiers.map((id) => {
@@ -63,7 +77,7 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
   }
   // Assumptions are the model's own text (ours, with inline code), not the document's: listed as written.
   if (model.assumptions.length) out.push('**assumes**\n' + model.assumptions.map((a) => `- ${a}`).join('\n'));
-  for (const f of analysis.findings.filter((f) => f.severity === 'info')) out.push(`ℹ️ ${escapeMarkdown(f.message)}`);
+  for (const f of analysis.findings.filter((f) => f.severity === 'info' && f.code !== Code.caution)) out.push(`ℹ️ ${messageMarkdown(f.message)}`);
   return out.join('\n\n');
 }
 

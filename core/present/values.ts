@@ -45,7 +45,7 @@ export function headline(analysis: BlockAnalysis): string {
   for (const [key, part] of Object.entries(analysis.solved ?? {})) {
     const spec = model.params.find((p) => p.key === key);
     const dim = spec && spec.kind === 'quantity' ? spec.dim : '';
-    parts.push(`${key} = ${formatQuantity(part.value, dim)}${part.series ? ` (${part.series})` : ''}`);
+    parts.push(`${key} = ${dim ? formatQuantity(part.value, dim) : formatConstant(part.value)}${part.series ? ` (${part.series})` : ''}`);
   }
   const warnings = analysis.findings.filter((f) => f.severity === 'warning').length;
   if (warnings) parts.push(`${warnings} warning${warnings > 1 ? 's' : ''}`);

@@ -131,4 +131,26 @@ describe('analysis of one block', () => {
     const typo = noteBlock(['circuit: timer', 'from: board', 'clock: 1 MHz', 'prescaler: 1', 'reload: 9']);
     assert.match(typo.findings[0].message, /ends in \.h/);
   });
+
+  it('refuses an absolute tolerance in another unit than its value', () => {
+    const block = noteBlock(['circuit: rc-delay', 'r: 10k ±1 V', 'c: 1u', 'toward: 5 V', 'to: 2 V']);
+    assert.match(errors(block)[0], /tolerance of `r` is a voltage \(V\), but `r` is a resistance/);
+  });
+
+  it('adds the safety-timing caution to any circuit named for a guard, or marked `safety: yes`', () => {
+    // Common practice: watchdog, reset and interlock timing is verified on hardware, apart from its arithmetic.
+    const named = noteBlock(['circuit: 555-monostable', 'supply: 5 V', 'r: 100k', 'c: 10u']).findings;
+    assert.ok(!named.some((f) => f.code === 'caution'));
+    const text = ['```timing door-interlock', 'circuit: 555-monostable', 'supply: 5 V', 'r: 100k', 'c: 10u', '```', ''].join('\n');
+    const guarded = analyzeText('n.md', text).blocks[0].findings.filter((f) => f.code === 'caution');
+    assert.equal(guarded.length, 1);
+    assert.match(guarded[0].message, /verify it independently on the built hardware/);
+    const marked = noteBlock(['circuit: rc-delay', 'r: 10k', 'c: 1u', 'toward: 5 V', 'to: 2 V', 'safety: yes']).findings;
+    assert.equal(marked.filter((f) => f.code === 'caution').length, 1);
+  });
+
+  it('reports a value above the parameter table\'s limit once, not again from the model', () => {
+    const block = noteBlock(['circuit: timer', 'clock: 1 MHz', 'prescaler: 0', 'reload: 9']);
+    assert.equal(block.findings.filter((f) => f.code === 'physics').length, 1);
+  });
 });

@@ -48,6 +48,23 @@ describe('tickmark check', () => {
     assert.equal(run(['bogus'], dir).code, 2);
   });
 
+  it('reads the header beside a file checked by itself', () => {
+    const dir = workspace({
+      'fw/tick.c': '#include "board.h"\n// @timing tick\n// circuit: timer\n// clock: CLK\n// prescaler: 64\n// reload: TOP\n// expect: 1 kHz\n',
+      'fw/board.h': '#define CLK 16000000u\n#define TOP 249u\n',
+    });
+    const r = run(['check', path.join(dir, 'fw', 'tick.c')], os.tmpdir());
+    assert.equal(r.code, 0, r.out);
+  });
+
+  it('refuses a file that is neither a note nor C, and warns for a file above the size limit', () => {
+    const dir = workspace({ 'notes.txt': goodNote, 'big.md': goodNote + ' '.repeat(3000) });
+    assert.equal(run(['check', 'notes.txt'], dir).code, 2);
+    const big = run(['check', '--max-size-kb', '2', 'big.md'], dir);
+    assert.equal(big.code, 1);
+    assert.match(big.out, /big\.md:1: warning: file is larger than the size limit of 2 KB/);
+  });
+
   it('applies --tolerance to claims without their own', () => {
     // 976.6 Hz is 2.34 % below 1 kHz: outside ±1 %, inside ±3 %.
     const dir = workspace({ 'stale.md': staleNote });
