@@ -1,5 +1,5 @@
 // The six figures of `npm run bench`, each measured in this process (or a child process for the CLI).
-import { execFileSync, spawnSync } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
@@ -110,56 +110,4 @@ export function monteCarlo(): Row[] {
   const f = block.spread?.frequency;
   const note = f?.p1 !== undefined ? `whole block analysis; frequency p1 ${f.p1.toFixed(1)} Hz, p99 ${f.p99!.toFixed(1)} Hz` : 'no percentiles computed';
   return [{ figure: '5  Monte Carlo, 10,000 samples (555-astable)', value: ms(m), target: '< 20 ms', met: m < 20 && f?.p1 !== undefined, note }];
-}
-
-export function bundle(): Row[] {
-  let bytes: number;
-  let activation: Row;
-  try {
-    execFileSync(process.execPath, [path.join(root, 'scripts', 'build.mjs'), '--release'], { cwd: root, stdio: 'pipe' });
-    bytes = fs.statSync(path.join(root, 'out', 'extension.js')).size;
-    activation = activationOutsideHost();
-  } finally {
-    // Put the development build back: the editor tests load out/ with source maps.
-    execFileSync(process.execPath, [path.join(root, 'scripts', 'build.mjs')], { cwd: root, stdio: 'pipe' });
-  }
-  return [
-    { figure: '6a bundle out/extension.js (release)', value: `${(bytes / 1024).toFixed(0)} kB`, target: '< 500 kB', met: bytes < 500 * 1024 },
-    activation,
-  ];
-}
-
-/**
- * Loading the release bundle and calling activate() against a stand-in API that accepts every call. This is
- * the extension's own share of activation; the real host adds its own overhead, seen in the editor suite.
- */
-function activationOutsideHost(): Row {
-  const Module = require('node:module') as { _load: (request: string, ...rest: unknown[]) => unknown };
-  // The bundle copies the API's own keys (esbuild's ESM interop), so the stand-in lists the names the sources use.
-  const names = new Set<string>();
-  for (const file of fs.readdirSync(path.join(root, 'extension')).filter((f) => f.endsWith('.ts'))) {
-    for (const m of fs.readFileSync(path.join(root, 'extension', file), 'utf8').matchAll(/\bvscode\.([A-Za-z]+)/g)) names.add(m[1]);
-  }
-  const target = function () {};
-  const standIn: unknown = new Proxy(target, {
-    get: (_t, key) => (key === Symbol.toPrimitive ? () => '' : key === 'then' ? undefined : standIn),
-    ownKeys: () => [...Reflect.ownKeys(target), ...[...names].filter((n) => !Reflect.ownKeys(target).includes(n))],
-    getOwnPropertyDescriptor: (_t, key) => Reflect.getOwnPropertyDescriptor(target, key) ?? { configurable: true, enumerable: true, value: standIn },
-    apply: () => standIn,
-    construct: () => standIn as object,
-  });
-  const load = Module._load;
-  Module._load = (request: string, ...rest: unknown[]) => (request === 'vscode' ? standIn : load(request, ...rest));
-  try {
-    const file = path.join(root, 'out', 'extension.js');
-    const start = performance.now();
-    const extension = require(file) as { activate: (context: unknown) => unknown };
-    extension.activate({ subscriptions: [], extension: standIn, extensionUri: standIn, extensionMode: 1, logUri: standIn, storageUri: standIn, globalStorageUri: standIn, extensionPath: root, globalState: standIn, workspaceState: standIn, asAbsolutePath: (p: string) => path.join(root, p) });
-    const elapsed = performance.now() - start;
-    return { figure: '6b activation: load bundle + activate() (stand-in API)', value: ms(elapsed), target: '< 50 ms', met: elapsed < 50, note: 'outside the editor host' };
-  } catch (cause) {
-    return { figure: '6b activation (stand-in API)', value: 'n/a', target: '< 50 ms', met: false, note: `could not run: ${cause instanceof Error ? cause.message : String(cause)}` };
-  } finally {
-    Module._load = load;
-  }
 }

@@ -3,7 +3,8 @@ import { strict as assert } from 'assert';
 import { describe, it } from 'mocha';
 import * as vscode from 'vscode';
 import type { ActivationRecord } from '../../../extension/internalCommands';
-import { activeExtension, eventually, fixtureUri, lensTitles } from './host';
+import { hostActivationMarks } from './activationMeasure.test';
+import { activeExtension, fixtureUri, lensTitles } from './host';
 
 interface ContributedCommand {
   command: string;
@@ -43,7 +44,10 @@ export function activationTests(): void {
       assert.equal(record.engineLoadedAtActivation, false, 'activate() loaded the core engine');
       assert.ok(record.activationMs >= record.activateMs && record.activateMs >= 0, JSON.stringify(record));
       // The figure the bench reports (npm run bench, figure 6); printed, never asserted against a target.
-      console.log(`      activation in this host: ${record.activationMs.toFixed(1)} ms (activate() ${record.activateMs.toFixed(1)} ms)`);
+      const host = hostActivationMarks();
+      assert.ok(host, 'the host left no performance marks for the extension');
+      console.log(`      activation in this host: ${record.activationMs.toFixed(1)} ms by the extension's clock (activate() ${record.activateMs.toFixed(1)} ms); ` +
+        `host marks: load code ${host.loadCodeMs} ms, activate ${host.activateMs} ms`);
       const titles = await lensTitles(await fixtureUri('notes/clock.md'));
       assert.ok(titles.some((t) => t.includes('Hz')), titles.join(' | '));
       const after = await vscode.commands.executeCommand<ActivationRecord>('tickmark.internal.activationTime');
