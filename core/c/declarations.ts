@@ -14,6 +14,9 @@ export interface DeclarationSink {
 
 const STORAGE = new Set(['static', 'extern', 'register', 'inline', '_Thread_local', 'thread_local', 'constexpr', 'const', 'volatile', 'typedef', 'auto']);
 
+/** The words without which a statement neither declares a constant or typedef nor opens an enum body. */
+export const DECLARING = new Set(['enum', 'const', 'constexpr', 'typedef']);
+
 interface EnumState { depth: number; member: SourceToken[]; previous?: string; chainEpoch: number; memberEpoch: number; conditional: boolean }
 
 export class DeclarationScanner {
@@ -21,6 +24,21 @@ export class DeclarationScanner {
   private enumState?: EnumState;
 
   constructor(private readonly sink: DeclarationSink) {}
+
+  /**
+   * Nothing pending can still declare: no enum body is open and the statement so far names no keyword that
+   * starts a declaration. Code up to the next `;`, `{` or `}` without such a keyword then changes nothing.
+   */
+  quiet(): boolean {
+    if (this.enumState) return false;
+    for (const t of this.statement) if (t.kind === 'ident' && DECLARING.has(t.text)) return false;
+    return true;
+  }
+
+  /** A statement boundary the caller skipped over while quiet. */
+  boundary(): void {
+    this.statement = [];
+  }
 
   /** `epoch` changes whenever an undecidable #if branch opens or closes. */
   push(tok: SourceToken, epoch: number): void {

@@ -13,8 +13,20 @@ function candidates(suffix: string, decimal: boolean): string[] {
 
 const SUFFIX = /(?:[uU](?:ll|LL|l|L)?|(?:ll|LL|l|L)[uU]?)$/;
 
+const parsedByTypes = new WeakMap<TypeSystem, Map<string, Val | string>>();
+
 /** `pp`: inside #if every integer acts as intmax_t or uintmax_t (C11 6.10.1p4). */
 export function parseNumber(text: string, ts: TypeSystem, pp = false): Val | string {
+  // Values are never mutated, so one parse per spelling serves a whole table (firmware repeats `1u`, `8u` …).
+  let parsed = parsedByTypes.get(ts);
+  if (!parsed) parsedByTypes.set(ts, (parsed = new Map()));
+  const key = pp ? '#' + text : text;
+  let found = parsed.get(key);
+  if (found === undefined) parsed.set(key, (found = parseNumberUncached(text, ts, pp)));
+  return found;
+}
+
+function parseNumberUncached(text: string, ts: TypeSystem, pp: boolean): Val | string {
   const isHex = /^0[xX]/.test(text);
   if (isHex ? /[pP]/.test(text) : /^[0-9]*\.|^[0-9]+[eE]/.test(text) && !/^0[bB]/.test(text)) return parseFloating(text, ts);
   const m = SUFFIX.exec(text);

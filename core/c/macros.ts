@@ -3,7 +3,7 @@
 import { Code } from '../codes';
 import type { Span } from '../types';
 import type { EvalError } from './evaluate';
-import { tokenize, type SourceToken } from './tokens';
+import { tokenize, withHide, type SourceToken } from './tokens';
 
 export interface MacroDef {
   name: string;
@@ -54,7 +54,7 @@ export function expandMacros(
       if (produced > limits.maxTokens) limit(t, `produced more than ${limits.maxTokens} tokens`);
       for (let i = replaced.length - 1; i >= 0; i--) {
         const r = replaced[i];
-        stack.push({ ...r, hide: r.hide && r.hide.size ? new Set([...r.hide, ...hide]) : hide });
+        stack.push(withHide(r, r.hide && r.hide.size ? new Set([...r.hide, ...hide]) : hide));
       }
     }
     return out;

@@ -8,7 +8,8 @@ import { DeclarationScanner } from './declarations';
 import { resolveInclude, type IncludeEnv } from './include';
 import { DEFAULT_LIMITS, type ExpandLimits, type MacroDef } from './macros';
 import { mergeBranches, Scope } from './scope';
-import { lineIndex, tokenizeSource, type SourceToken } from './tokens';
+import { emptySkim, skimLine } from './skim';
+import { lineIndex, tokenizeSourceRange, type SourceToken } from './tokens';
 
 export interface PreprocessOptions extends IncludeEnv {
   ts: TypeSystem;
@@ -62,7 +63,6 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
   const processFile = (uri: string, source: string, stack: string[]): void => {
     dependencies.add(uri);
     lineOfFile.set(uri, lineIndex(source));
-    const tokens = tokenizeSource(source, uri);
     const frames: Frame[] = [];
     const live = (): boolean => frames.length === 0 || frames[frames.length - 1].live;
 
@@ -98,21 +98,48 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
       return r.decision;
     };
 
-    for (let i = 0; i < tokens.length;) {
-      let j = i;
-      while (j < tokens.length && tokens[j].kind !== 'newline') j++;
-      const line = tokens.slice(i, j);
-      i = j + 1;
-      if (line.length === 0) continue;
-      const hash = line[0];
-      if (hash.kind !== 'punct' || hash.text !== '#') {
+    // Live code lines since the last statement boundary, skimmed but not yet given to the scanner.
+    const pending: number[] = [];
+    let pendingLength = 0;
+    let tokenMode = !scanner.quiet();
+    const feed = (from: number, to: number): void => {
+      for (const t of tokenizeSourceRange(source, from, to, uri, [])) {
+        if (t.error === 'unterminated comment') report(t, Code.cSyntax, 'unterminated /* comment');
+        scanner.push(t, epoch);
+      }
+    };
+    const flush = (): void => {
+      for (let k = 0; k < pendingLength; k += 2) feed(pending[k], pending[k + 1]);
+      pendingLength = 0;
+    };
+
+    const skimmed = emptySkim();
+    for (let pos = 0; pos <= source.length;) {
+      const at = skimLine(source, pos, skimmed);
+      pos = at.end + 1;
+      if (!at.directive) {
         if (!live()) continue;
-        for (const t of line) {
-          if (t.error === 'unterminated comment') report(t, Code.cSyntax, 'unterminated /* comment');
-          scanner.push(t, epoch);
+        if (tokenMode || at.keyword || at.unterminatedAt >= 0) {
+          // Exact from here on: the tokens since the statement began, then this line, until nothing is pending.
+          flush();
+          feed(at.start, at.end);
+          tokenMode = !scanner.quiet();
+        } else {
+          // A keyword-free stretch of code only ends statements that could not declare anything.
+          if (at.boundaryEnd >= 0) {
+            scanner.boundary();
+            pending[0] = at.boundaryEnd;
+            pending[1] = at.end;
+            pendingLength = 2;
+          } else {
+            pending[pendingLength++] = at.start;
+            pending[pendingLength++] = at.end;
+          }
         }
         continue;
       }
+      const line = tokenizeSourceRange(source, at.start, at.end, uri, []);
+      const hash = line[0];
       const name = line[1]?.text ?? '';
       const top = frames[frames.length - 1];
       if (name === 'if' || name === 'ifdef' || name === 'ifndef') {
@@ -140,9 +167,13 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
         if (line[2]?.kind === 'ident') current.macros.set(line[2].text, { kind: 'undef' });
         else report(hash, Code.cSyntax, '#undef needs a macro name');
       } else if (name === 'include') {
+        // The header's code follows this file's code so far, into the same scanner.
+        flush();
         include(line, uri, stack);
+        tokenMode = !scanner.quiet();
       }
     }
+    flush();
     while (frames.length) {
       const f = frames.pop() as Frame;
       report(f.at, Code.cSyntax, '#if without #endif in this file');

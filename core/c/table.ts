@@ -8,7 +8,7 @@ import { expandMacros, type MacroDef } from './macros';
 import { parseExpression } from './parse';
 import { preprocess } from './preprocess';
 import type { Declaration } from './scope';
-import { tokenizeSource, type SourceToken } from './tokens';
+import { tokenizeSource, withHide, type SourceToken } from './tokens';
 
 export interface CValue { value: bigint | number; type: string }
 
@@ -141,7 +141,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       const m = mb.def;
       if (m.params) return { ok: false, code: Code.cSyntax, message: `${name} is a function-like macro; it needs arguments`, definition: definitionOf(m) };
       const hide = new Set([name]);
-      return finish(name, evalTokens(m.body.map((t) => ({ ...t, hide }))), m);
+      return finish(name, evalTokens(m.body.map((t) => withHide(t, hide))), m);
     }
     const db = root.decl(name);
     if (db?.kind === 'conflict') {

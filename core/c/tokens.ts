@@ -47,9 +47,20 @@ function spliceLength(text: string, i: number): number {
 }
 
 export function tokenize(text: string): Token[] {
-  const tokens: Token[] = [];
-  const n = text.length;
-  let i = 0;
+  return tokenizeRange(text, 0, text.length, []);
+}
+
+/**
+ * Tokens of text[from, to) with offsets into the whole text, appended to `tokens`. `from` must be where a
+ * lexer over the whole text stands between tokens (a line start), `to` a newline or the end of the text.
+ */
+export function tokenizeRange<T extends Token>(text: string, from: number, to: number, tokens: T[]): T[] {
+  return lexRange(text, from, to, tokens as Token[]) as T[];
+}
+
+function lexRange(text: string, from: number, to: number, tokens: Token[]): Token[] {
+  const n = to;
+  let i = from;
   while (i < n) {
     const c = text[i];
     const splice = spliceLength(text, i);
@@ -65,8 +76,8 @@ export function tokenize(text: string): Token[] {
     if (c === '/' && text[i + 1] === '*') {
       const close = text.indexOf('*/', i + 2);
       if (close < 0) {
-        tokens.push({ kind: 'other', text: text.slice(i, i + 2), start: i, end: n, error: 'unterminated comment' });
-        i = n;
+        tokens.push({ kind: 'other', text: text.slice(i, i + 2), start: i, end: text.length, error: 'unterminated comment' });
+        i = text.length;
       } else i = close + 2;
       continue;
     }
@@ -122,11 +133,25 @@ function quoted(text: string, q: number, quote: string, tokens: Token[], start: 
   return end;
 }
 
-/** 1-based line numbers from offsets, by binary search over line starts. */
+/**
+ * 1-based line numbers from offsets. Questions usually come in file order, so a cursor counts forward;
+ * an earlier offset falls back to a binary search over line starts.
+ */
 export function lineIndex(text: string): (offset: number) => number {
-  const starts = [0];
-  for (let i = 0; i < text.length; i++) if (text.charCodeAt(i) === 10) starts.push(i + 1);
+  let cursor = 0;
+  let cursorLine = 1;
+  let starts: number[] | undefined;
   return (offset) => {
+    if (!starts && offset >= cursor) {
+      const end = Math.min(offset, text.length);
+      for (let i = cursor; i < end; i++) if (text.charCodeAt(i) === 10) cursorLine++;
+      cursor = Math.max(cursor, end);
+      return cursorLine;
+    }
+    if (!starts) {
+      starts = [0];
+      for (let i = 0; i < text.length; i++) if (text.charCodeAt(i) === 10) starts.push(i + 1);
+    }
     let lo = 0;
     let hi = starts.length - 1;
     while (lo < hi) {
@@ -145,8 +170,21 @@ export interface SourceToken extends Token {
 }
 
 export function tokenizeSource(text: string, uri: string): SourceToken[] {
+  return tokenizeSourceRange(text, 0, text.length, uri, []);
+}
+
+/** tokenizeRange with each token tagged with its file, appended to `out`. */
+export function tokenizeSourceRange(text: string, from: number, to: number, uri: string, out: SourceToken[]): SourceToken[] {
+  const first = out.length;
   // Tagged in place: a copy per token doubled the garbage of a large file.
-  const tokens = tokenize(text) as SourceToken[];
-  for (const t of tokens) t.uri = uri;
-  return tokens;
+  lexRange(text, from, to, out as Token[]);
+  for (let k = first; k < out.length; k++) out[k].uri = uri;
+  return out;
+}
+
+/** A copy of `t` produced by the macros in `hide`; spelled out, as an object spread per token is slow in V8. */
+export function withHide(t: SourceToken, hide: ReadonlySet<string>): SourceToken {
+  const copy: SourceToken = { kind: t.kind, text: t.text, start: t.start, end: t.end, uri: t.uri, hide };
+  if (t.error !== undefined) copy.error = t.error;
+  return copy;
 }
