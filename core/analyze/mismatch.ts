@@ -15,7 +15,9 @@ export function checkClaims(analysis: BlockAnalysis, plan: Plan, claims: Claim[]
   for (const claim of claims) {
     const computed = analysis.values[claim.measure];
     if (computed === undefined) {
-      findings.push({ severity: 'info', code: Code.expectUnknownMeasure, message: `${claim.measure} could not be computed, so \`${claim.text}\` is not checked`, span: claim.span });
+      const missing = plan.model.params.filter((p) => p.kind === 'quantity' && p.optional && !plan.entries.has(p.key)).map((p) => `\`${p.key}:\``);
+      const hint = missing.length ? ` — add ${missing.join(' or ')} to compute it` : '';
+      findings.push({ severity: 'info', code: Code.expectUnknownMeasure, message: `${claim.measure} is not computed for this block, so \`${claim.text}\` is not checked${hint}`, span: claim.span });
       continue;
     }
     if (meetsClaim(claim, computed)) continue;

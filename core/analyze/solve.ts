@@ -3,6 +3,8 @@
 import type { QuantityParam } from '../circuits/model';
 import { nearestInSeries, parseSeriesName, type SeriesName } from '../series';
 import { computeAt } from './measure';
+import { formatQuantity } from '../format';
+import { formatResult } from '../present/values';
 import type { Plan } from './plan';
 
 export type SolveOutcome =
@@ -30,7 +32,8 @@ export function solveContinuous(plan: Plan, spec: QuantityParam, measure: string
   for (let step = 0; step < 80; step++) {
     if (Math.abs(m1 / target - 1) < 1e-12) return { ok: true, exact: x1 };
     const slope = Math.log(m1 / m0) / Math.log(x1 / x0);
-    if (!Number.isFinite(slope) || Math.abs(slope) < 1e-12) break;
+    if (!Number.isFinite(slope)) break;
+    if (Math.abs(slope) < 1e-12) return { ok: false, message: `${measure} does not depend on \`${spec.key}\`; put \`?\` on a part that sets it` };
     let next = x1 * Math.pow(target / m1, 1 / slope);
     // Keep each step within three decades so a poor slope cannot throw the iterate out of the model's range.
     next = Math.min(Math.max(next, x1 * 1e-3), x1 * 1e3);
@@ -46,7 +49,8 @@ export function solveContinuous(plan: Plan, spec: QuantityParam, measure: string
     m1 = mNext;
   }
   if (Math.abs(m1 / target - 1) < 1e-9) return { ok: true, exact: x1 };
-  return { ok: false, message: `no value of \`${spec.key}\` reaches ${measure} = ${target}` };
+  const reached = m1 !== undefined ? `; the nearest it came is ${formatResult(plan.model, measure, m1)} at ${formatQuantity(x1, spec.dim)}` : '';
+  return { ok: false, message: `no value of \`${spec.key}\` gives ${measure} ${formatResult(plan.model, measure, target)}${reached}` };
 }
 
 /** The standard part for a solved resistor or capacitor; other quantities keep the exact value. */

@@ -83,7 +83,7 @@ export function solveUnknowns(
       `\`${first.key}\` = ${formatQuantity(outcome.exact, dim)} exactly` +
       (snapped.series ? `; nearest ${snapped.series} part ${text}` : '') +
       (achieved !== undefined ? ` gives ${formatQuantity(achieved, resultDim(plan, target.measure))} (${formatSignedPercent(error!)})` : '') +
-      (inBand ? '' : ` — outside ${target.text}`),
+      (inBand ? '' : ` — outside ${target.text}${target.toleranceGiven ? '' : ` (default ±${Math.round(target.tolerance.plus * 1e6) / 1e4} %)`}`),
     span: first.span,
     fixes: [{ title: `Fill in ${first.key}: ${text}`, edits: [{ uri: context.uri, span: first.span, newText: text }] }],
   });

@@ -21,7 +21,8 @@ export const ansiPaint: Paint = {
 
 /** Control characters from a document would steer the terminal (ECMA-48 escape sequences): shown as \uXXXX. */
 export function printable(text: string): string {
-  return text.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f]/g, (ch) => `\\u${ch.charCodeAt(0).toString(16).padStart(4, '0')}`);
+  // Also the bidirectional controls (Unicode TR9): a block name must not reorder the line it is printed on.
+  return text.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, (ch) => `\\u${ch.charCodeAt(0).toString(16).padStart(4, '0')}`);
 }
 
 export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): string {

@@ -2,7 +2,7 @@
 import type { BlockAnalysis } from '../types';
 import type { CircuitModel } from '../circuits/model';
 import { circuitById } from '../circuits/registry';
-import { formatPercent, formatQuantity, formatSignedPercent } from '../format';
+import { formatNumber, formatPercent, formatQuantity, formatSignedPercent } from '../format';
 
 export function formatResult(model: CircuitModel, key: string, value: number): string {
   const spec = model.results.find((r) => r.key === key);
@@ -10,6 +10,9 @@ export function formatResult(model: CircuitModel, key: string, value: number): s
   if (spec?.percent) return key === 'error' ? formatSignedPercent(value) : formatPercent(value);
   // Baud rates are read as whole numbers in the trade (9600, 115200), not with prefixes.
   if (key === 'baud') return `${Math.round(value * 10) / 10} baud`;
+  // Below 1 Hz a prefix misleads: "500 mHz" is read as MHz at a glance. Long times stay in seconds, not ks.
+  if (spec?.dim === 'Hz' && Math.abs(value) < 1 && value !== 0) return `${formatNumber(value, 4)} Hz`;
+  if (spec?.dim === 's' && Math.abs(value) >= 1000) return `${formatNumber(value, 4)} s`;
   // Counts and register values are whole numbers a firmware engineer compares digit by digit.
   if (!spec?.dim && Number.isInteger(value) && Math.abs(value) < 1e15) return String(value);
   return formatQuantity(value, spec?.dim ?? '');
