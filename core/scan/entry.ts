@@ -68,7 +68,7 @@ export class EntryCollector {
     const first = this.seen.get(entry.key);
     if (first) {
       this.findings.push({
-        severity: 'error',
+        severity: 'warning',
         code: Code.blockKeyRepeated,
         message: `\`${entry.key}\` is given twice; the first value (\`${first.valueText}\`) is used.`,
         span: entry.keySpan,
