@@ -3,7 +3,7 @@ import { rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
 import { capacitor, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, resistor, voltage, voltageCautions, hasErrors, overflowIssues, oscillatorKeys } from './common';
 import { relaxationResults, relaxationWaveform, type Relaxation } from './relaxation';
-import { controlIssues, controlParam, levelLabels } from './555-common';
+import { controlIssues, controlParam, levelLabels, supplyCautions } from './555-common';
 
 const datasheet = 'Texas Instruments NE555 datasheet (SLFS022), equations for astable operation; thresholds generalised to any control voltage by the RC charging law';
 
@@ -81,5 +81,5 @@ export const ne555Astable: CircuitModel = {
 
   waveform: (input, cycles) => relaxationWaveform(relaxation(input), cycles, levelLabels(input)),
 
-  cautions: (input) => voltageCautions(input, ['supply', 'control']),
+  cautions: (input) => [...supplyCautions(input), ...voltageCautions(input, ['supply', 'control'])],
 };

@@ -25,3 +25,15 @@ export function levelLabels(input: ModelInput): Waveform['levels'] {
     { label: atDefault ? '1/3 supply' : 'control/2', value: control / 2 },
   ];
 }
+
+/**
+ * The supply a 555 can run from (NE555 datasheet SLFS022, recommended operating conditions, from memory:
+ * 4.5 V to 16 V; 18 V absolute maximum). Below 4.5 V only a CMOS 555 works; above 18 V none does.
+ */
+export function supplyCautions(input: ModelInput): string[] {
+  const { supply } = input.values;
+  if (supply > 18) return [`supply ${eng(supply, 'V')} is above the 18 V absolute maximum of the NE555 (SLFS022): no standard 555 survives it`];
+  if (supply > 16) return [`supply ${eng(supply, 'V')} is above the NE555's recommended 16 V (SLFS022); check the part's own limits`];
+  if (supply < 4.5) return [`supply ${eng(supply, 'V')} is below the bipolar NE555's 4.5 V minimum (SLFS022): this needs a CMOS 555, whose own datasheet sets the limits`];
+  return [];
+}

@@ -2,7 +2,7 @@
 import { rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
 import { capacitor, checkPositive, eng, finiteOnly, resistor, voltage, voltageCautions, hasErrors, overflowIssues } from './common';
-import { controlIssues, controlParam, levelLabels } from './555-common';
+import { controlIssues, controlParam, levelLabels, supplyCautions } from './555-common';
 import { sampleRcSegments } from './segments';
 
 function width(input: ModelInput): number {
@@ -59,5 +59,5 @@ export const ne555Monostable: CircuitModel = {
     return { traces, levels: levelLabels(input).slice(0, 1), duration: pulse * 1.25 };
   },
 
-  cautions: (input) => voltageCautions(input, ['supply', 'control']),
+  cautions: (input) => [...supplyCautions(input), ...voltageCautions(input, ['supply', 'control'])],
 };

@@ -98,10 +98,21 @@ describe('cautions', () => {
     const low = withDefaults(model, { values: { ...astable, supply: 15 } });
     const high = withDefaults(model, { values: { ...astable, supply: 72 } });
     assert.deepEqual(model.cautions?.(low), []);
-    const text = model.cautions?.(high) ?? [];
+    const all = model.cautions?.(high) ?? [];
+    const text = all.filter((t) => /60 V/.test(t));
     assert.equal(text.length, 1);
-    assert.match(text[0], /60 V/);
     assert.match(text[0], /hazardous/);
+    // NE555 datasheet (SLFS022), from memory: 18 V absolute maximum supply.
+    assert.ok(all.some((t) => /18 V absolute maximum/.test(t)));
+  });
+
+  it('notes a 555 supply outside the NE555 range of 4.5 V to 16 V', () => {
+    // NE555 datasheet (SLFS022), recommended operating conditions, from memory: VCC 4.5 V to 16 V.
+    const model = circuitById('555-monostable') as CircuitModel;
+    const at = (supply: number) => model.cautions?.(withDefaults(model, { values: { supply, r: 10e3, c: 1e-6 } })) ?? [];
+    assert.match(at(3.3)[0], /below the bipolar NE555's 4\.5 V minimum/);
+    assert.deepEqual(at(12), []);
+    assert.match(at(17)[0], /recommended 16 V/);
   });
 
   it('reminds that watchdog and reset timing needs independent verification', () => {
