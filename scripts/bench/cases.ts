@@ -1,5 +1,5 @@
 // The six figures of `npm run bench`, each measured in this process (or a child process for the CLI).
-import { spawnSync } from 'node:child_process';
+import { execFileSync, spawnSync } from 'node:child_process';
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
@@ -34,12 +34,14 @@ export function firmwareScan(): Row[] {
     }
     return median(runs);
   };
+  // bin/tickmark.js runs the bundle out/cli.js when it is current, as CI and the packaged copy do.
+  execFileSync(process.execPath, [path.join(root, 'scripts', 'build.mjs')], { cwd: root, stdio: 'pipe' });
   const cli = wall([path.join(root, 'bin', 'tickmark.js'), 'check', '--json', file]);
   const pattern = String.raw`/@timing\b|^\s*\*?\s*[A-Za-z][\w+.-]*\s*:\s*\S.*$/gm`;
   const bare = wall(['-e', `const t=require('fs').readFileSync(${JSON.stringify(file)},'utf8');let n=0;const p=${pattern};while(p.exec(t)!==null)n++;console.log(JSON.stringify({n}))`]);
   fs.rmSync(folder, { recursive: true, force: true });
   return [
-    { figure: `1a scan+evaluate 100k-line C, 2,000 blocks (${size})`, value: ms(scan), target: '—', met: true, note: `${evaluated} blocks computed; bare regex ${ms(regex)}` },
+    { figure: `1a scan+evaluate 100k-line C, 2,000 blocks (${size})`, value: ms(scan), target: '—', met: evaluated === 2_000, note: `${evaluated} blocks computed; bare regex ${ms(regex)}` },
     { figure: '1b   ratio to a bare regex pass, in process', value: times(scan / regex), target: '≤ 2×', met: scan / regex <= 2 },
     { figure: '1c   ratio whole process: check --json vs node -e regex', value: times(cli / bare), target: '≤ 3×', met: cli / bare <= 3, note: `${ms(cli)} vs ${ms(bare)}` },
   ];

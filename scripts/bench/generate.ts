@@ -24,8 +24,8 @@ export function generateFirmware(lines: number, blocks: number): string {
       `    timer_set_reload(TIMER${i % 8}, TASK${i}_TOP); /* ${reload} */`,
       '}',
     );
-    // Short filler keeps the file under the default size limit (2 MB), so the check reads it.
-    while (out.length - start < per) out.push((out.length - start) % 3 ? '\tn++;' : '');
+    // Short filler keeps the file under the default size limit (1024 KB), so the check reads it.
+    while (out.length - start < per) out.push((out.length - start) % 3 ? 'n++;' : '');
   }
   while (out.length < lines) out.push('/* end filler */');
   return out.join('\n') + '\n';
