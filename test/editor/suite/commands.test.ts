@@ -122,7 +122,7 @@ export function commandTests(): void {
           const all = tickmarkDiagnostics(readme.uri);
           return all.length > 0 ? all : undefined;
         }, 'the file-too-large notice');
-        assert.deepEqual(found.map((d) => [d.code, d.severity]), [['file-too-large', vscode.DiagnosticSeverity.Information]]);
+        assert.deepEqual(found.map((d) => [d.code, d.severity]), [['file-too-large', vscode.DiagnosticSeverity.Warning]]);
       });
     });
   });
