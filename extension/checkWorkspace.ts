@@ -60,7 +60,7 @@ async function checkOne(uri: vscode.Uri, summary: WorkspaceSummary, store: Analy
   let analysis;
   if (open) {
     // Counted as skipped like a file on disk; its open editor shows the one file-too-large notice.
-    if (open.getText().length > readSettings(uri).maxSizeKB * 1024) summary.skipped.push(vscode.workspace.asRelativePath(uri));
+    if (Buffer.byteLength(open.getText(), 'utf8') > readSettings(uri).maxSizeKB * 1024) summary.skipped.push(vscode.workspace.asRelativePath(uri));
     analysis = store.analysisOf(open);
     problems.publish(open);
     if (summary.skipped.includes(vscode.workspace.asRelativePath(uri))) return;

@@ -1,6 +1,7 @@
 // The one entry point the CLI and the editor share: a document's text in, every block's analysis out.
 import type { DocumentAnalysis, Finding, TextDocumentLike } from '../types';
 import { Code } from '../codes';
+import { isTooLarge } from '../size';
 import { hostOf, scanDocument } from '../scan';
 import { lineOf, lineStarts } from '../scan/lines';
 import { analyzeBlock } from './block';
@@ -50,13 +51,6 @@ export function tooLargeAnalysis(uri: string, options: Pick<AnalyzeOptions, 'max
   };
 }
 
-/** The limit is in bytes of UTF-8, as on disk; counting only when characters alone cannot decide. */
-export function isTooLarge(text: string, maxBytes: number): boolean {
-  if (text.length > maxBytes) return true;
-  if (text.length * 3 <= maxBytes) return false;
-  return Buffer.byteLength(text, 'utf8') > maxBytes;
-}
-
 function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: AnalysisCache | undefined): DocumentAnalysis {
   const analysis: DocumentAnalysis = { uri: doc.uri, blocks: [], findings: [], dependencies: [] };
   if (isTooLarge(doc.text, options.maxFileBytes)) return tooLargeAnalysis(doc.uri, options);
@@ -99,3 +93,5 @@ function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: Analy
   analysis.dependencies = [...dependencies];
   return analysis;
 }
+
+export { isTooLarge } from '../size';

@@ -2,6 +2,7 @@
 import * as path from 'node:path';
 import type { Finding } from '../types';
 import { Code } from '../codes';
+import { isTooLarge } from '../size';
 import { buildConstantTable, toNumber, type ConstantTable, type DataModel } from '../c';
 import type { AnalyzeOptions, DataModelName, IdentifierLookup, IdentifierSource } from './context';
 
@@ -54,7 +55,7 @@ export function fromFileSource(notePath: string, spelled: string, options: Analy
   if (!roots.some((root) => isInside(real, root))) return { problem: `\`${spelled}\` is outside the workspace; Tickmark reads firmware only inside it` };
   const text = options.read(target);
   if (text === undefined) return { problem: `cannot read \`${spelled}\` (looked for ${target})` };
-  if (text.length > options.maxFileBytes) return { problem: `\`${spelled}\` is larger than the size limit (${Math.round(options.maxFileBytes / 1024)} KB)` };
+  if (isTooLarge(text, options.maxFileBytes)) return { problem: `\`${spelled}\` is larger than the size limit (${Math.round(options.maxFileBytes / 1024)} KB)` };
   return { source: cFileSource(target, text, options) };
 }
 
