@@ -6,20 +6,41 @@ import { Code } from '../codes';
 import type { ValueNode } from './ast';
 import { shown } from './lexer';
 
-// A restricted instance: the Unit class and the scalar arithmetic it needs, no parser or evaluator.
-const math = create({ UnitDependencies, multiplyScalarDependencies, divideScalarDependencies });
-type Unit = InstanceType<typeof math.Unit>;
+// A restricted instance: the Unit class and the scalar arithmetic it needs, no parser or evaluator. Built on first
+// use: most values are one quantity whose dimension is known without it.
+type MathUnits = ReturnType<typeof createUnits>;
+const createUnits = () => create({ UnitDependencies, multiplyScalarDependencies, divideScalarDependencies });
+let instance: MathUnits | undefined;
+const math = (): MathUnits => (instance ??= createUnits());
+type Unit = InstanceType<MathUnits['Unit']>;
 
 type PhysicalDim = 'Ω' | 'F' | 'V' | 'Hz' | 's' | 'A';
 const mathjsName: Readonly<Record<PhysicalDim, string>> = { 'Ω': 'ohm', F: 'F', V: 'V', Hz: 'Hz', s: 's', A: 'A' };
-const base: ReadonlyArray<[PhysicalDim, Unit]> = (Object.keys(mathjsName) as PhysicalDim[]).map((d) => [d, new math.Unit(1, mathjsName[d])]);
+let baseUnits: ReadonlyArray<[PhysicalDim, Unit]> | undefined;
+const base = () => (baseUnits ??= (Object.keys(mathjsName) as PhysicalDim[]).map((d) => [d, new (math().Unit)(1, mathjsName[d])]));
+
+/** A unit state knows its named dimension, its mathjs Unit, or both; the other is made when needed. */
+interface UnitState {
+  kind: 'unit';
+  dim?: PhysicalDim;
+  unit?: Unit;
+}
+
+function unitOf(s: UnitState): Unit {
+  return (s.unit ??= new (math().Unit)(1, mathjsName[s.dim!]));
+}
+
+function sameBase(a: UnitState, b: UnitState): boolean {
+  if (a.dim && b.dim) return a.dim === b.dim;
+  return unitOf(a).equalBase(unitOf(b));
+}
 
 type State =
   | { kind: 'plain' }
   | { kind: 'percent' }
   | { kind: 'baud' }
   | { kind: 'other' }
-  | { kind: 'unit'; unit: Unit };
+  | UnitState;
 
 const plain: State = { kind: 'plain' };
 
@@ -29,7 +50,7 @@ function stateOf(dim: Dim): State {
     case '%': return { kind: 'percent' };
     case 'baud': return { kind: 'baud' };
     case 'other': return { kind: 'other' };
-    default: return { kind: 'unit', unit: new math.Unit(1, mathjsName[dim]) };
+    default: return { kind: 'unit', dim };
   }
 }
 
@@ -46,7 +67,7 @@ function dimOfState(s: State): Dim {
     case 'percent': return '%';
     case 'baud': return 'baud';
     case 'other': return 'other';
-    case 'unit': return base.find(([, u]) => s.unit.equalBase(u))?.[0] ?? 'other';
+    case 'unit': return s.dim ?? base().find(([, u]) => s.unit!.equalBase(u))?.[0] ?? 'other';
   }
 }
 
@@ -73,7 +94,7 @@ function add(op: '+' | '-', a: State, b: State, span: Span): State {
   if (a.kind === 'percent' && b.kind === 'percent') return a;
   if (isDimensionless(a) && isDimensionless(b)) return plain;
   if (a.kind === 'baud' && b.kind === 'baud') return a;
-  if (a.kind === 'unit' && b.kind === 'unit' && a.unit.equalBase(b.unit)) return a;
+  if (a.kind === 'unit' && b.kind === 'unit' && sameBase(a, b)) return a;
   const verb = op === '+' ? `cannot add ${words(b)} to ${words(a)}` : `cannot subtract ${words(b)} from ${words(a)}`;
   const hint = a.kind === 'unit' && b.kind === 'plain' ? ` — give the number a unit (${dimOfState(a)})` : '';
   return fail(`\`${op}\`: ${verb}${hint}`, span);
@@ -92,8 +113,8 @@ function multiply(op: '*' | '/', a: State, b: State, span: Span): State {
   if (a.kind === 'percent' && b.kind === 'percent') return plain;
   if (op === '*' && a.kind === 'percent') return b;
   if (b.kind === 'percent') return a.kind === 'percent' ? plain : a;
-  const left = a.kind === 'unit' ? a.unit : undefined;
-  const right = (b as Extract<State, { kind: 'unit' }>).unit;
+  const left = a.kind === 'unit' ? unitOf(a) : undefined;
+  const right = unitOf(b as UnitState);
   if (op === '*') return left ? fromMathjs(left.multiply(right)) : b;
   return left ? fromMathjs(left.divide(right)) : fromMathjs((right as unknown as { pow(n: number): Unit }).pow(-1));
 }
