@@ -85,6 +85,34 @@ async function checkPanelAndPreview(page) {
   return problems;
 }
 
+// The planted firmware mismatch: squiggle, Problems list and the quick fix offered (shown, never applied).
+async function checkFirmware(page) {
+  const problems = [];
+  await runCommand(page, 'View: Close All Editors');
+  await page.getByRole('treeitem', { name: 'firmware' }).first().click();
+  await page.getByRole('treeitem', { name: 'src' }).first().click();
+  await page.getByRole('treeitem', { name: 'valve_pwm.c' }).dblclick({ timeout: 30_000 });
+  await page.waitForSelector('.monaco-editor .squiggly-warning', { timeout: 30_000 });
+  await runCommand(page, 'View: Focus Problems (Errors, Warnings, Infos)');
+  const row = page.locator('.markers-panel .monaco-list-row').filter({ hasText: 'computes 16 kHz' }).first();
+  await row.waitFor({ state: 'visible', timeout: 15_000 });
+  const rowText = await row.innerText();
+  log(`problems: ${JSON.stringify(rowText)}`);
+  if (!/expect says 20 kHz/.test(rowText)) problems.push('the Problems list does not show the valve-pwm claim');
+  await row.dblclick();
+  await page.waitForTimeout(800);
+  await runCommand(page, 'Quick Fix...');
+  const menu = page.locator('.action-widget').first();
+  await menu.waitFor({ state: 'visible', timeout: 15_000 });
+  await page.waitForTimeout(500);
+  const fixes = await menu.innerText();
+  log(`quick fixes: ${JSON.stringify(fixes)}`);
+  await page.screenshot({ path: path.join(artifacts, 'editor-quickfix.png') });
+  if (!/VALVE_PWM_TOP.*799/.test(fixes)) problems.push('the quick fix to set VALVE_PWM_TOP to 799 is not offered');
+  await page.keyboard.press('Escape');
+  return problems;
+}
+
 async function check(page) {
   await page.waitForSelector('.monaco-workbench', { timeout: 60_000 });
   await page.getByRole('treeitem', { name: 'notes' }).first().click();
@@ -109,6 +137,7 @@ async function check(page) {
   if (!lenses.some((t) => expectedDelay.test(t))) problems.push('no code lens shows 120.4 ms');
   if (!expectedDelay.test(hoverText)) problems.push('the hover does not show 120.4 ms');
   problems.push(...(await checkPanelAndPreview(page)));
+  problems.push(...(await checkFirmware(page)));
   return problems;
 }
 

@@ -68,7 +68,7 @@ function registerFix(plan: Plan, claim: Claim, overrides: Record<string, number>
     if (achieved === undefined || !meetsClaim(claim, achieved)) continue;
     const edit = editFor(plan, slot, candidate, context);
     if (!edit) continue;
-    return { label: edit.label, achieved, fix: { title: `Set ${edit.label} (meets ${claim.text})`, edits: [edit.edit] } };
+    return { label: edit.label, achieved, fix: { title: `Set ${edit.label.replace(/`/g, '')} (meets ${claim.text})`, edits: [edit.edit] } };
   }
   return undefined;
 }

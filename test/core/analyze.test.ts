@@ -23,7 +23,7 @@ describe('analysis of one block', () => {
     assert.ok(warning, 'mismatch reported');
     assert.equal(warning.message, 'probe: computes 976.6 Hz, expect says 1 kHz ±0.5% (−2.34 %); `reload: 249` gives 1 kHz');
     const titles = (warning.fixes ?? []).map((f) => f.title);
-    assert.deepEqual(titles, ['Set `reload: 249` (meets 1 kHz ±0.5%)', 'Update the claim to 976.6 Hz']);
+    assert.deepEqual(titles, ['Set reload: 249 (meets 1 kHz ±0.5%)', 'Update the claim to 976.6 Hz']);
   });
 
   it('offers the #define literal that meets the claim, in the header where it is defined', () => {
@@ -33,7 +33,7 @@ describe('analysis of one block', () => {
     const block = doc.blocks[0];
     const warning = block.findings.find((f) => f.code === 'expect-mismatch')!;
     const fix = warning.fixes![0];
-    assert.equal(fix.title, 'Set `TICK_TOP` = 249u (meets 1 kHz ±0.5%)');
+    assert.equal(fix.title, 'Set TICK_TOP = 249u (meets 1 kHz ±0.5%)');
     const edit = fix.edits[0];
     assert.ok(edit.uri.endsWith('board.h'));
     assert.equal(header.slice(edit.span.start, edit.span.end), '255u');
