@@ -1,5 +1,6 @@
 // Decides an #if / #elif / #ifdef condition as true, false, or unknown (it names a macro this scan cannot see,
 // e.g. one set on the compiler's command line). Unknown branches are kept apart and merged, never guessed.
+import { Code } from '../codes';
 import type { TypeSystem } from './ctypes';
 import { evaluate, isError } from './evaluate';
 import { expandMacros, type ExpandLimits, type MacroDef } from './macros';
@@ -25,7 +26,7 @@ export function preprocessorTypes(ts: TypeSystem): TypeSystem {
 
 export function decideIf(
   tokens: SourceToken[], scope: Scope, ppTypes: TypeSystem, limits: ExpandLimits,
-): { decision: Decision; problem?: { message: string; tok?: SourceToken } } {
+): { decision: Decision; problem?: { message: string; tok?: SourceToken; code?: string } } {
   if (tokens.some((t) => t.text === '__has_include' || t.text === '__has_include_next')) return { decision: 'unknown' };
   const replaced: SourceToken[] = [];
   for (let i = 0; i < tokens.length; i++) {
@@ -49,7 +50,7 @@ export function decideIf(
   const value = evaluate(node, { ts: ppTypes, pp: true, identifier: (tok) => ({ err: tok.text, code: UNKNOWN, tok }) });
   if (isError(value)) {
     if (value.code === UNKNOWN) return { decision: 'unknown' };
-    return { decision: 'unknown', problem: { message: value.err, tok: value.tok } };
+    return { decision: 'unknown', problem: { message: value.err, tok: value.tok, code: value.code === Code.cUndefined ? value.code : undefined } };
   }
   const nonzero = typeof value.v === 'bigint' ? value.v !== 0n : value.v !== 0;
   return { decision: nonzero ? 'true' : 'false' };

@@ -4,10 +4,15 @@
 import { Code } from '../codes';
 import { commonType, convert, promote, wrap, type CType, type IntType, type TypeSystem, type Val } from './ctypes';
 import { parseChar, parseNumber } from './literals';
+import { arithmeticOverflow, leftShiftOverflow, negationOverflow, operationToken } from './overflow';
 import type { Node } from './parse';
 import type { SourceToken } from './tokens';
 
-export interface EvalError { err: string; code: string; tok?: SourceToken }
+export interface EvalError {
+  err: string; code: string; tok?: SourceToken;
+  /** The message already names the constant whose definition holds the problem. */
+  named?: boolean;
+}
 export type EvalResult = Val | EvalError;
 
 export const isError = (r: unknown): r is EvalError => typeof r === 'object' && r !== null && 'err' in r;
@@ -49,6 +54,8 @@ export function evaluate(node: Node, ctx: EvalContext, live = true): EvalResult 
       const x = convert(a, t) as Val;
       if (node.op === '+') return x;
       if (typeof x.v === 'number') return node.op === '-' ? { v: -x.v, t } : { err: `'~' needs an integer operand`, code: Code.cSyntax, tok: node.tok };
+      const overflow = node.op === '-' && live ? negationOverflow(x.v, t as IntType, ts) : undefined;
+      if (overflow) return { err: overflow, code: Code.cUndefined, tok: operationToken(node) };
       return { v: wrap(node.op === '-' ? -x.v : ~x.v, t as IntType), t };
     }
     case 'cast': {
@@ -107,8 +114,10 @@ function binary(node: Extract<Node, { k: 'binary' }>, ctx: EvalContext, live: bo
     const count = b.v as bigint;
     if (count < 0n || count >= BigInt(lt.bits)) {
       if (!live) return { v: 0n, t: lt };
-      return { err: `shift count ${count} is out of range for ${lt.name} (undefined behaviour, C11 6.5.7p3)`, code: Code.cUndefined, tok };
+      return { err: `shift count ${count} is out of range for ${lt.name}, ${lt.bits}-bit under ${ts.model} (undefined behaviour, C11 6.5.7p3)`, code: Code.cUndefined, tok };
     }
+    const overflow = op === '<<' && live ? leftShiftOverflow(x, count, lt, ts) : undefined;
+    if (overflow) return { err: overflow, code: Code.cUndefined, tok: operationToken(node) };
     return { v: wrap(op === '<<' ? x << count : x >> count, lt), t: lt };
   }
 
@@ -133,5 +142,7 @@ function binary(node: Extract<Node, { k: 'binary' }>, ctx: EvalContext, live: bo
   // BigInt division and remainder truncate toward zero, as C11 6.5.5p6 requires.
   const r = op === '+' ? x + y : op === '-' ? x - y : op === '*' ? x * y : op === '/' ? x / y : op === '%' ? x % y
     : op === '&' ? x & y : op === '|' ? x | y : x ^ y;
+  const overflow = live && (op === '+' || op === '-' || op === '*' || op === '/' || op === '%') ? arithmeticOverflow(op, x, y, r, t as IntType, ts) : undefined;
+  if (overflow) return { err: overflow, code: Code.cUndefined, tok: operationToken(node) };
   return { v: wrap(r, t as IntType), t };
 }

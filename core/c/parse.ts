@@ -2,13 +2,17 @@
 import { keywordTypeName, TYPE_KEYWORDS, type CType } from './ctypes';
 import type { SourceToken } from './tokens';
 
-export type Node =
+export type Node = (
   | { k: 'num' | 'char' | 'ident'; tok: SourceToken }
   | { k: 'unary'; op: string; arg: Node; tok: SourceToken }
   | { k: 'binary'; op: string; l: Node; r: Node; tok: SourceToken }
   | { k: 'cond'; c: Node; a: Node; b: Node; tok: SourceToken }
   | { k: 'cast'; type: CType; arg: Node; tok: SourceToken }
-  | { k: 'sizeof'; type?: CType; arg?: Node; tok: SourceToken };
+  | { k: 'sizeof'; type?: CType; arg?: Node; tok: SourceToken }
+) & Parenthesised;
+
+/** Set on a parenthesised expression: its '(' and ')', so a finding can cover the whole of it. */
+export interface Parenthesised { open?: SourceToken; close?: SourceToken }
 
 export interface ParseError { error: string; tok?: SourceToken }
 
@@ -64,7 +68,8 @@ export function parseExpression(tokens: SourceToken[], typedefName: (name: strin
     if (t.text === '(') {
       pos++;
       const inner = conditional();
-      expect(')');
+      inner.close = expect(')');
+      inner.open = t;
       return inner;
     }
     if (t.kind === 'string') return fail('a string is not a number', t);

@@ -94,7 +94,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
       }
       if (args.length === 0) { report(hash, Code.cSyntax, `#${directive} needs a condition`); return 'unknown'; }
       const r = decideIf(args, current, ppTypes, limits);
-      if (r.problem) report(r.problem.tok?.uri === uri ? r.problem.tok : line[1], Code.cSyntax, `#${directive}: ${r.problem.message}`);
+      if (r.problem) report(r.problem.tok?.uri === uri ? r.problem.tok : line[1], r.problem.code ?? Code.cSyntax, `#${directive}: ${r.problem.message}`);
       return r.decision;
     };
 

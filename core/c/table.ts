@@ -100,11 +100,12 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     if (b?.kind === 'def' && b.def.params) return { err: `${name} is a function-like macro; it needs arguments`, code: Code.cSyntax, tok };
     const r = lookup(name);
     if (r.ok) return values.get(name) as Val;
-    return { err: r.message, code: r.code, tok: r.at ? { ...tok, uri: r.at.uri, start: r.at.span.start, end: r.at.span.end } : tok };
+    return { err: r.message, code: r.code, named: true, tok: r.at ? { ...tok, uri: r.at.uri, start: r.at.span.start, end: r.at.span.end } : tok };
   };
 
   const finish = (name: string, x: EvalResult, def: MacroDef | Declaration): ConstantResolution => {
-    if (isError(x)) return { ...fail(x), definition: definitionOf(def) };
+    // Undefined behaviour names the constant it sits in, once: outer constants pass the message on as it is.
+    if (isError(x)) return { ...fail(x.code === Code.cUndefined && !x.named ? { ...x, err: `${name}: ${x.err}` } : x), definition: definitionOf(def) };
     values.set(name, x);
     return { ok: true, value: toCValue(x), definition: definitionOf(def) };
   };
@@ -115,7 +116,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       const x = evalTokens(d.init as SourceToken[]);
       if (isError(x) || !d.type) return x;
       const c = convert(x, d.type);
-      return typeof c === 'string' ? { err: `${d.name}: ${c}`, code: Code.cUndefined } : c;
+      return typeof c === 'string' ? { err: `${d.name}: ${c}`, code: Code.cUndefined, named: true } : c;
     }
     let x: EvalResult;
     if (d.init) x = evalTokens(d.init);

@@ -11,9 +11,10 @@ const evalIn = (model: DataModel, expr: string): string => {
 const ip16 = (expr: string): string => evalIn('ip16', expr);
 
 describe('C constants under ip16, by hand', () => {
-  it('200 * 200 wraps in a 16-bit int to -25536 (C11 6.3.1.1, by hand; signed overflow is undefined, the evaluator wraps like avr-gcc)', () => {
-    assert.equal(ip16('200 * 200'), '-25536 int');
+  it('200 * 200 overflows a 16-bit int: undefined behaviour (C11 6.5p5, by hand), a finding rather than a wrapped -25536', () => {
+    assert.equal(ip16('200 * 200'), 'error c-undefined');
     assert.equal(evalIn('ilp32', '200 * 200'), '40000 int');
+    assert.equal(ip16('(int16_t)(200L * 200)'), '-25536 int16_t', 'a cast of an out-of-range long wraps: implementation-defined, gcc wraps (C11 6.3.1.3p3)');
   });
 
   it('200u * 200u stays unsigned int: 40000 (C11 6.2.5p9, by hand)', () => {
@@ -42,8 +43,9 @@ describe('C constants under ip16, by hand', () => {
   });
 
   it('16 * BAUD overflows int on an 8-bit MCU, the reason AVR baud macros write 16UL (common practice, from memory)', () => {
-    // 16 * 9600 = 153600 ≡ 22528 (mod 65536), which is a positive int16.
-    assert.equal(ip16('16 * BAUD'), '22528 int');
+    // 16 * 9600 = 153600 > INT_MAX = 32767: undefined (C11 6.5p5); a wrapping compiler would give 22528.
+    assert.equal(ip16('16 * BAUD'), 'error c-undefined');
+    assert.equal(evalIn('ilp32', '16 * BAUD'), '153600 int');
     assert.equal(ip16('F_CPU / (16UL * BAUD) - 1'), '103 unsigned long');
   });
 
