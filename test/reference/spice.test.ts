@@ -5,46 +5,10 @@ import { strict as assert } from 'assert';
 import type { CircuitModel } from '../../core/circuits/model';
 import { circuitById } from '../../core/circuits/registry';
 import { withDefaults } from '../../core/circuits/defaults';
-
-type Engine = { setNetList(text: string): void; runSim(): Promise<{ variableNames: string[]; data: Array<{ name: string; values: unknown[] }> }>; getError(): string[] };
+import { comparatorNetlist, ne555AstableNetlist, schmittNetlist, simulate as simulateOn, startEngine, measure, tran, type Engine } from './spice-netlists';
 
 let engine: Engine;
-
-async function simulate(netlist: string): Promise<{ time: number[]; out: number[] }> {
-  engine.setNetList(netlist);
-  const result = await engine.runSim();
-  const column = (name: string) => {
-    const found = result.data.find((d) => d.name.toLowerCase() === name);
-    assert.ok(found, `ngspice returned no ${name} (has ${result.variableNames.join(', ')}; errors: ${engine.getError().join(' | ')})`);
-    return found.values as number[];
-  };
-  return { time: column('time'), out: column('v(out)') };
-}
-
-/** Output edges through `level`, linearly interpolated between samples. */
-function edges(time: number[], out: number[], level: number): Array<{ t: number; rising: boolean }> {
-  const found: Array<{ t: number; rising: boolean }> = [];
-  for (let i = 1; i < out.length; i++) {
-    const a = out[i - 1] - level;
-    const b = out[i] - level;
-    if (a < 0 !== b < 0) found.push({ t: time[i - 1] + ((time[i] - time[i - 1]) * a) / (a - b), rising: b > a });
-  }
-  return found;
-}
-
-/** Startup (first edge), and period and duty averaged over the steady cycles after the first one. */
-function measure(time: number[], out: number[], level: number) {
-  const all = edges(time, out, level);
-  const rises = all.filter((e) => e.rising).map((e) => e.t);
-  const falls = all.filter((e) => !e.rising).map((e) => e.t);
-  assert.ok(rises.length >= 4 && falls.length >= 4, `too few edges: ${rises.length} rising, ${falls.length} falling`);
-  const steadyFalls = falls.slice(1);
-  const period = (steadyFalls[steadyFalls.length - 1] - steadyFalls[0]) / (steadyFalls.length - 1);
-  // High times: from each rise to the next fall.
-  const highs = rises.map((r) => { const f = falls.find((t) => t > r); return f === undefined ? undefined : f - r; }).filter((h): h is number => h !== undefined);
-  const high = highs.reduce((s, h) => s + h, 0) / highs.length;
-  return { startup: all[0].t, frequency: 1 / period, duty: high / period };
-}
+const simulate = (netlist: string) => simulateOn(engine, netlist);
 
 function closeTo(actual: number, expected: number, relative: number, what: string) {
   assert.ok(Math.abs(actual / expected - 1) <= relative, `${what}: simulated ${actual}, model ${expected} (${((actual / expected - 1) * 100).toFixed(3)} %)`);
@@ -56,23 +20,11 @@ function model(id: string): CircuitModel {
   return found;
 }
 
-/** Simulated time and step for `cycles` periods plus startup, a step of period/4000 for sharp edges. */
-function tran(period: number, startup: number, cycles: number): string {
-  const stop = startup + cycles * period;
-  const step = period / 4000;
-  return `.tran ${step} ${stop} 0 ${step} uic`;
-}
-
 describe('oscillators against ngspice (eecircuit-engine)', function () {
   this.timeout(60000);
 
   before(async () => {
-    // The package's type entry sits only under "exports", which this project's `node` resolution does not read.
-    const specifier = 'eecircuit-engine';
-    const { Simulation } = (await import(specifier)) as { Simulation: new () => Engine & { start(): Promise<void> } };
-    const sim = new Simulation();
-    await sim.start();
-    engine = sim;
+    engine = await startEngine();
   });
 
   it('schmitt-rc: hysteresis switch driving R into C', async () => {
@@ -81,18 +33,7 @@ describe('oscillators against ngspice (eecircuit-engine)', function () {
     const input = withDefaults(m, { values: { supply: 5, 'vt+': 3.1, 'vt-': 1.4, r: 22e3, c: 33e-9 } });
     assert.deepEqual(m.validate(input), []);
     const expected = m.compute(input);
-    const vt = (3.1 + 1.4) / 2;
-    const vh = (3.1 - 1.4) / 2;
-    const sim = await simulate(`schmitt rc oscillator
-.model hyst sw vt=${vt} vh=${vh} ron=1m roff=1e12
-vone one 0 dc 1
-rpull one ctl 1k
-s1 ctl 0 cap 0 hyst
-bout out 0 v = 5 * v(ctl)
-r1 out cap 22k
-c1 cap 0 33n ic=0
-${tran(expected.period, expected.startup, 6)}
-.end`);
+    const sim = await simulate(schmittNetlist({ supply: 5, upper: 3.1, lower: 1.4, r: 22e3, c: 33e-9 }, tran(expected.period, expected.startup, 6)));
     const got = measure(sim.time, sim.out, 2.5);
     closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
     closeTo(got.duty, expected.duty, 0.003, 'duty');
@@ -107,16 +48,7 @@ ${tran(expected.period, expected.startup, 6)}
     const expected = m.compute(input);
     // The comparator is a steep tanh of (v+ − v−); 1 pF at v+ gives the regenerative edge a few ns to happen.
     // v+ starts at its output-high value, the power-up state the model assumes (else ngspice sits metastable).
-    const sim = await simulate(`comparator relaxation oscillator
-bcmp out 0 v = 6 * tanh(20000 * (v(plus) - v(cap)))
-vref ref 0 dc 1
-r1 plus ref 15k
-r2 out plus 27k
-cp plus 0 1p ic=${expected['vt+']}
-r3 out cap 39k
-c1 cap 0 4.7n ic=0
-${tran(expected.period, expected.startup, 6)}
-.end`);
+    const sim = await simulate(comparatorNetlist({ voh: 6, vol: -6, vref: 1, r1: 15e3, r2: 27e3, r: 39e3, c: 4.7e-9 }, tran(expected.period, expected.startup, 6)));
     const got = measure(sim.time, sim.out, 0);
     closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
     closeTo(got.duty, expected.duty, 0.003, 'duty');
@@ -134,17 +66,7 @@ ${tran(expected.period, expected.startup, 6)}
       const expected = m.compute(input);
       const upper = input.values.control;
       // The 555's latch is a hysteresis window on the capacitor voltage: on above `upper`, off below `upper/2`.
-      const sim = await simulate(`555 astable, switch level
-.model latch sw vt=${0.75 * upper} vh=${0.25 * upper} ron=1m roff=1e12
-vcc vcc 0 dc 9
-ra vcc dis 4.7k
-rb dis cap 12k
-c1 cap 0 22n ic=0
-sdis dis 0 cap 0 latch
-rout vcc out 1k
-sout out 0 cap 0 latch
-${tran(expected.period, expected.startup, 6)}
-.end`);
+      const sim = await simulate(ne555AstableNetlist({ supply: 9, ra: 4.7e3, rb: 12e3, c: 22e-9, control: upper }, tran(expected.period, expected.startup, 6)));
       const got = measure(sim.time, sim.out, 4.5);
       closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
       closeTo(got.duty, expected.duty, 0.003, 'duty');
