@@ -4,7 +4,7 @@ import type { RawBlock, Span } from '../types';
 import { Code } from '../codes';
 import { lineAt, skipBlanks, trimEnd } from './lines';
 import { EntryCollector, readEntryLine } from './entry';
-import { readHeaderName, startsWithWord } from './header';
+import { ignoredHeaderText, readHeaderName, startsWithWord, type HeaderName } from './header';
 import { findComments, type CComment } from './c-comments';
 
 class BlockBuilder {
@@ -15,9 +15,12 @@ class BlockBuilder {
 
   constructor(
     readonly headerSpan: Span,
-    readonly name: ReturnType<typeof readHeaderName>,
+    readonly name: HeaderName,
+    text: string,
   ) {
     this.lastEnd = headerSpan.end;
+    const ignored = ignoredHeaderText(text, name);
+    if (ignored) this.collector.findings.push(ignored);
   }
 
   /** Takes the comment text text[from, to) as the next line; false when the line ends the block. */
@@ -46,7 +49,7 @@ function header(text: string, from: number, to: number): BlockBuilder | undefine
   const at = skipBlanks(text, from, to);
   if (!startsWithWord(text, at, to, '@timing')) return undefined;
   const end = trimEnd(text, at, to);
-  return new BlockBuilder({ start: at, end }, readHeaderName(text, at + '@timing'.length, end));
+  return new BlockBuilder({ start: at, end }, readHeaderName(text, at + '@timing'.length, end), text);
 }
 
 /** Skips the extra `/` or `!` of `///` and `//!` doc comments, or `*`/`!` of `/**` and `/*!`. */

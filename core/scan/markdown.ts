@@ -5,7 +5,7 @@ import type { RawBlock } from '../types';
 import { Code } from '../codes';
 import { lineAt, trimEnd } from './lines';
 import { EntryCollector, readEntryLine } from './entry';
-import { readHeaderName, startsWithWord } from './header';
+import { ignoredHeaderText, readHeaderName, startsWithWord } from './header';
 
 interface Fence {
   char: number;
@@ -96,6 +96,10 @@ export function scanMarkdown(text: string): RawBlock[] {
     }
     if (!isTiming) continue;
     const findings = collector.findings;
+    const header = readHeaderName(text, infoAt + 'timing'.length, line.end);
+    const { name, nameSpan } = header;
+    const ignored = ignoredHeaderText(text, header);
+    if (ignored) findings.unshift(ignored);
     if (!closed) {
       findings.unshift({
         severity: 'warning',
@@ -104,7 +108,6 @@ export function scanMarkdown(text: string): RawBlock[] {
         span: headerSpan,
       });
     }
-    const { name, nameSpan } = readHeaderName(text, infoAt + 'timing'.length, line.end);
     blocks.push({
       host: 'markdown',
       ...(name !== undefined ? { name, nameSpan } : {}),
