@@ -65,6 +65,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     else findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`data-model\` takes ${dataModels.join(', ')}, not \`${dataModelEntry.valueText}\``, span: dataModelEntry.valueSpan });
   }
 
+  if (raw.host === 'c') findings.push(...unsignedSuffixHints(raw));
   const plan = buildPlan(raw, model, context.source, dataModel);
   findings.push(...plan.findings);
   findings.push(...seriesFindings(raw, model, context.uri));
@@ -153,6 +154,31 @@ function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>
     else findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`safety\` takes \`yes\` or \`no\`, not \`${entry.valueText}\``, span: entry.valueSpan });
   }
   return safety ? [safetyCaution, ...cautions] : cautions;
+}
+
+/**
+ * In firmware, `2u` is C's unsigned 2; in a block it is 2 µ (DESIGN.md's SI prefixes). Said out loud where a
+ * firmware engineer is most likely to write it, a bare number with a lone `u`.
+ */
+function unsignedSuffixHints(raw: RawBlock): Finding[] {
+  const hints: Finding[] = [];
+  // Only beside a firmware name (`SYS_CLOCK / 2u`): `c: 2u` alone is a 2 µF capacitor, as meant.
+  // Linear tests only: a value line can be hostile and long.
+  const firmwareName = (text: string) => text.includes('_') || /\b[A-Z][A-Z0-9]{2,}\b/.test(text);
+  for (const entry of raw.entries) {
+    if (!firmwareName(entry.valueText)) continue;
+    const pattern = /(?<![\w.])(\d+)[uU](?![\w(])/g;
+    for (let m = pattern.exec(entry.valueText); m; m = pattern.exec(entry.valueText)) {
+      const start = entry.valueSpan.start + m.index;
+      hints.push({
+        severity: 'warning',
+        code: Code.valueUnit,
+        message: `\`${m[0]}\` reads as ${m[1]} µ (the micro prefix), not C's unsigned ${m[1]}: write \`${m[1]}\` for the number`,
+        span: { start, end: start + m[0].length },
+      });
+    }
+  }
+  return hints;
 }
 
 function integerMeta(entry: { valueText: string; valueSpan: { start: number; end: number }; key: string } | undefined, findings: Finding[], min: number, max: number): number | undefined {

@@ -52,6 +52,17 @@ export const baud: CircuitModel = {
       issues.push({ key: 'divisor', message: `divisor must be greater than zero (got ${divisor})` });
     }
     if (!hasErrors(issues)) issues.push(...overflowIssues(baud.compute(input), ['baud', 'error'], 'baud'));
+    // `baud:` states the wanted rate, so a divisor that misses it is a stale claim like any other: a warning.
+    if (!hasErrors(issues)) {
+      const { error } = rates(input);
+      if (Math.abs(error) > usualErrorLimit) {
+        issues.push({
+          key: input.values.divisor !== undefined ? 'divisor' : 'baud',
+          severity: 'warning',
+          message: `rate error ${percent(error)} is beyond the ±2 % an 8-N-1 link usually tolerates between both ends (common practice)`,
+        });
+      }
+    }
     return issues;
   },
 
@@ -77,11 +88,5 @@ export const baud: CircuitModel = {
       { formula: 'error = rate / baud − 1', substituted: `error = ${eng(results.baud, 'Bd')} / ${eng(wanted, 'Bd')} − 1 = ${percent(results.error)}`, source },
     );
     return lines;
-  },
-
-  cautions(input) {
-    const { error } = rates(input);
-    if (!(Math.abs(error) > usualErrorLimit)) return [];
-    return [`rate error ${percent(error)} is beyond the ±2 % an 8-N-1 link usually tolerates between both ends (common practice).`];
   },
 };

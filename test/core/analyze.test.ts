@@ -153,4 +153,19 @@ describe('analysis of one block', () => {
     const block = noteBlock(['circuit: timer', 'clock: 1 MHz', 'prescaler: 0', 'reload: 9']);
     assert.equal(block.findings.filter((f) => f.code === 'physics').length, 1);
   });
+
+  it('says that `2u` beside a firmware name is 2 µ, not C\'s unsigned 2', () => {
+    const source = ['#define SYS_HZ 16000000u', '// @timing t', '// circuit: timer', '// clock: SYS_HZ / 2u', '// prescaler: 8', '// reload: 999', '// @timing cap', '// circuit: rc-delay', '// r: 10k', '// c: 2u', '// toward: 5 V', '// to: 2 V', ''].join('\n');
+    const [timer, delay] = analyzeText('src/t.c', source).blocks;
+    const hint = timer.findings.find((f) => f.code === 'value-unit')!;
+    assert.equal(source.slice(hint.span.start, hint.span.end), '2u');
+    assert.ok(!delay.findings.some((f) => f.code === 'value-unit'), 'a lone 2u is a 2 µF capacitor');
+  });
+
+  it('warns when a UART divisor misses the wanted rate beyond ±2 %', () => {
+    // 16 MHz / (16 · 9) = 111.1 kbaud against 115200: −3.5 % (AVR baud tables, from memory).
+    const block = noteBlock(['circuit: baud', 'clock: 16 MHz', 'baud: 115200', 'divisor: 9']);
+    const warning = block.findings.find((f) => f.severity === 'warning')!;
+    assert.match(warning.message, /^`divisor`: rate error −3\.5/);
+  });
 });
