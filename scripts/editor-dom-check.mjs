@@ -63,10 +63,15 @@ async function checkPanelAndPreview(page) {
   await lens.click();
   const panel = await frameWith(page, '#chart svg polyline');
   const plot = panel.locator('#chart svg');
-  const box = await plot.boundingBox();
-  if (box) await plot.hover({ position: { x: box.width * 0.55, y: box.height * 0.4 } });
-  await page.waitForTimeout(500);
-  const readout = await panel.locator('#readout').innerText();
+  // The panel may redraw once more after opening; move over the plot until the readout follows the mouse.
+  let readout = '';
+  for (let attempt = 0; attempt < 6; attempt++) {
+    const box = await plot.boundingBox();
+    if (box) await plot.hover({ position: { x: box.width * (0.5 + attempt * 0.02), y: box.height * 0.4 } });
+    await page.waitForTimeout(500);
+    readout = await panel.locator('#readout').innerText();
+    if (readout.startsWith('t = ')) break;
+  }
   const heading = await panel.locator('#block-name').innerText();
   log(`panel: ${JSON.stringify(heading)}, readout ${JSON.stringify(readout)}`);
   await page.screenshot({ path: path.join(artifacts, 'editor-panel.png') });

@@ -7,6 +7,7 @@ import { commandTests } from './commands.test';
 import { completionTests } from './completion.test';
 import { diagnosticsTests } from './diagnostics.test';
 import { hoverTests } from './hover.test';
+import { hostileTests } from './hostile.test';
 import { lensTests } from './lens.test';
 import { panelTests } from './panel.test';
 import { panelHtmlTests } from './panelHtml.test';
@@ -27,6 +28,7 @@ export function run(): Promise<void> {
   previewTests();
   completionTests();
   commandTests();
+  hostileTests();
   return new Promise((resolve, reject) => {
     mocha.run((failures) => (failures > 0 ? reject(new Error(`${failures} editor test(s) failed`)) : resolve()));
   });
