@@ -37,7 +37,7 @@ export class DeclarationScanner {
 
   /** A statement boundary the caller skipped over while quiet. */
   boundary(): void {
-    this.statement = [];
+    if (this.statement.length) this.statement = [];
   }
 
   /** `epoch` changes whenever an undecidable #if branch opens or closes. */

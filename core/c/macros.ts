@@ -46,7 +46,7 @@ export function expandMacros(
         if (stack[stack.length - 1]?.text !== '(') { out.push(t); continue; }
         args = collectArgs(stack, m, t);
       }
-      const hide = new Set(t.hide ?? []);
+      const hide = t.hide ? new Set(t.hide) : new Set<string>();
       hide.add(m.name);
       if (hide.size > limits.maxDepth) limit(t, `nests deeper than ${limits.maxDepth}`);
       const replaced = substitute(m, args, (arg) => run(arg, depth + 1));
@@ -54,7 +54,8 @@ export function expandMacros(
       if (produced > limits.maxTokens) limit(t, `produced more than ${limits.maxTokens} tokens`);
       for (let i = replaced.length - 1; i >= 0; i--) {
         const r = replaced[i];
-        stack.push(withHide(r, r.hide && r.hide.size ? new Set([...r.hide, ...hide]) : hide));
+        // Only an identifier can be expanded or reported as self-referring, so only it carries the hide set.
+        stack.push(r.kind !== 'ident' ? r : withHide(r, r.hide && r.hide.size ? new Set([...r.hide, ...hide]) : hide));
       }
     }
     return out;

@@ -114,9 +114,14 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     };
 
     const skimmed = emptySkim();
+    // 1-based line of the current logical line's start, counted here so #define needs no pass of its own.
+    let lineNumber = 0;
+    let nextLine = 1;
     for (let pos = 0; pos <= source.length;) {
       const at = skimLine(source, pos, skimmed);
       pos = at.end + 1;
+      lineNumber = nextLine;
+      nextLine += 1 + at.newlines;
       if (!at.directive) {
         if (!live()) continue;
         if (tokenMode || at.keyword || at.unterminatedAt >= 0) {
@@ -162,7 +167,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
       } else if (!live()) {
         continue;
       } else if (name === 'define') {
-        define(line, uri);
+        define(line, uri, at.newlines === 0 && at.unterminatedAt < 0 ? lineNumber : undefined);
       } else if (name === 'undef') {
         if (line[2]?.kind === 'ident') current.macros.set(line[2].text, { kind: 'undef' });
         else report(hash, Code.cSyntax, '#undef needs a macro name');
@@ -181,7 +186,8 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     }
   };
 
-  const define = (line: SourceToken[], uri: string): void => {
+  /** `lineNumber`: the line the whole directive stands on, when it is one physical line. */
+  const define = (line: SourceToken[], uri: string, lineNumber: number | undefined): void => {
     const nameTok = line[2];
     if (!nameTok || nameTok.kind !== 'ident') { report(line[0], Code.cSyntax, '#define needs a macro name'); return; }
     let k = 3;
@@ -204,7 +210,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     const def: MacroDef = {
       name: nameTok.text, params, variadic, body, uri,
       nameSpan: { start: nameTok.start, end: nameTok.end }, span: { start: line[0].start, end: last.end },
-      line: lineOfFile.get(uri)?.(nameTok.start) ?? 1,
+      line: lineNumber ?? lineOfFile.get(uri)?.(nameTok.start) ?? 1,
     };
     current.macros.set(def.name, { kind: 'def', def });
   };

@@ -17,9 +17,11 @@ export interface SkimmedLine {
   boundaryEnd: number;
   /** Offset of a `/*` that is never closed (the line then runs to the end of the text); -1 otherwise. */
   unterminatedAt: number;
+  /** Newlines inside the logical line (splices, block comments), so a caller can count lines without a second pass. */
+  newlines: number;
 }
 
-export const emptySkim = (): SkimmedLine => ({ start: 0, end: 0, directive: false, keyword: false, boundaryEnd: -1, unterminatedAt: -1 });
+export const emptySkim = (): SkimmedLine => ({ start: 0, end: 0, directive: false, keyword: false, boundaryEnd: -1, unterminatedAt: -1, newlines: 0 });
 
 const isIdentPart = (ch: number): boolean =>
   (ch >= 97 && ch <= 122) || (ch >= 65 && ch <= 90) || ch === 95 || ch === 36 || (ch >= 48 && ch <= 57);
@@ -49,6 +51,7 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
   out.keyword = false;
   out.boundaryEnd = -1;
   out.unterminatedAt = -1;
+  let newlines = 0;
   let first = true;
   let i = from;
   while (i < n) {
@@ -57,7 +60,7 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
     if (c === 32 || c === 9 || c === 13 || c === 12 || c === 11) { i++; continue; }
     if (c === 92) {
       const s = splice(text, i);
-      if (s) { i += s; continue; }
+      if (s) { i += s; newlines++; continue; }
       first = false;
       i++;
       continue;
@@ -67,7 +70,11 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
       if (next === 47) {
         // A line comment ends at the newline unless a splice carries it on.
         i += 2;
-        while (i < n && text.charCodeAt(i) !== 10) i += (text.charCodeAt(i) === 92 && splice(text, i)) || 1;
+        while (i < n && text.charCodeAt(i) !== 10) {
+          const s = text.charCodeAt(i) === 92 ? splice(text, i) : 0;
+          if (s) newlines++;
+          i += s || 1;
+        }
         continue;
       }
       if (next === 42) {
@@ -77,6 +84,7 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
           i = n;
           break;
         }
+        for (let nl = text.indexOf('\n', i + 2); nl >= 0 && nl < close; nl = text.indexOf('\n', nl + 1)) newlines++;
         i = close + 2;
         continue;
       }
@@ -86,7 +94,10 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
       while (j < n) {
         const d = text.charCodeAt(j);
         if (d === c || d === 10) break;
-        j += d === 92 ? splice(text, j) || 2 : 1;
+        if (d !== 92) { j++; continue; }
+        const s = splice(text, j);
+        if (s) newlines++;
+        j += s || 2;
       }
       i = j < n && text.charCodeAt(j) === c ? j + 1 : Math.min(j, n);
       first = false;
@@ -106,5 +117,6 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
     i++;
   }
   out.end = i;
+  out.newlines = newlines;
   return out;
 }

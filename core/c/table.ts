@@ -142,7 +142,8 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       const m = mb.def;
       if (m.params) return { ok: false, code: Code.cSyntax, message: `${name} is a function-like macro; it needs arguments`, definition: definitionOf(m) };
       const hide = new Set([name]);
-      return finish(name, evalTokens(m.body.map((t) => withHide(t, hide))), m);
+      // Only identifiers consult a hide set; numbers and punctuators are shared as they are (tokens are never mutated).
+      return finish(name, evalTokens(m.body.map((t) => (t.kind === 'ident' ? withHide(t, hide) : t))), m);
     }
     const db = root.decl(name);
     if (db?.kind === 'conflict') {

@@ -20,12 +20,16 @@ const PUNCTUATORS = [
   '[', ']', '(', ')', '{', '}', '.', '&', '*', '+', '-', '~', '!', '/', '%', '<', '>', '^', '|', '?', ':', ';', '=', ',', '#',
 ];
 
-// Punctuators grouped by first character: the tokenizer runs over whole firmware files on every keystroke.
-const PUNCTUATORS_BY_FIRST = new Map<string, string[]>();
-for (const p of PUNCTUATORS) {
-  const list = PUNCTUATORS_BY_FIRST.get(p[0]) ?? [];
-  list.push(p);
-  PUNCTUATORS_BY_FIRST.set(p[0], list);
+// Punctuators grouped by the code of their first character (all ASCII): the tokenizer runs over whole
+// firmware files on every keystroke.
+const PUNCTUATORS_BY_FIRST: Array<string[] | undefined> = [];
+for (const p of PUNCTUATORS) (PUNCTUATORS_BY_FIRST[p.charCodeAt(0)] ??= []).push(p);
+
+function punctuatorAt(text: string, i: number, c: number): string | undefined {
+  const list = c < 128 ? PUNCTUATORS_BY_FIRST[c] : undefined;
+  if (!list) return undefined;
+  for (let k = 0; k < list.length; k++) if (text.startsWith(list[k], i)) return list[k];
+  return undefined;
 }
 
 function isIdentStartCode(ch: number): boolean {
@@ -108,7 +112,7 @@ function lexRange(text: string, from: number, to: number, tokens: Token[]): Toke
       continue;
     }
     if (c === "'" || c === '"') { i = quoted(text, i, c, tokens, i); continue; }
-    const p = PUNCTUATORS_BY_FIRST.get(c)?.find((q) => text.startsWith(q, i));
+    const p = punctuatorAt(text, i, text.charCodeAt(i));
     if (p) { tokens.push({ kind: 'punct', text: p, start: i, end: i + p.length }); i += p.length; continue; }
     tokens.push({ kind: 'other', text: c, start: i, end: i + 1, error: `unexpected character '${c}'` });
     i++;
