@@ -32,7 +32,7 @@ export const codeDescriptions: Record<CodeId, string> = {
   [Code.fileTooLarge]: 'A file is above the size limit and was not read.',
   [Code.fileUnreadable]: 'A file could not be read.',
   [Code.seriesSnap]: 'A part value is off the block\'s standard series.',
-  [Code.cUndefined]: 'A firmware constant expression has undefined behaviour in C (shift out of range, float-to-integer overflow).',
+  [Code.cUndefined]: 'A firmware constant expression has undefined behaviour in C (signed overflow, shift out of range, float-to-integer overflow).',
   [Code.caution]: 'A safety caution for the circuit as given.',
 };
 
