@@ -3,7 +3,7 @@ import type { DocumentAnalysis, Finding, TextDocumentLike } from '../types';
 import { Code } from '../codes';
 import { isTooLarge } from '../size';
 import { hostOf, scanDocument } from '../scan';
-import { lineOf, lineStarts } from '../scan/lines';
+import { LineCounter } from '../scan/lines';
 import { analyzeBlock } from './block';
 import { noIdentifiers, type AnalyzeOptions, type IdentifierSource } from './context';
 import { cFileSource, fromFileSource } from './sources';
@@ -56,7 +56,7 @@ function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: Analy
   if (isTooLarge(doc.text, options.maxFileBytes)) return tooLargeAnalysis(doc.uri, options);
   const blocks = scanDocument(doc);
   if (blocks.length === 0) return analysis;
-  const starts = lineStarts(doc.text);
+  const lines = new LineCounter(doc.text);
   const isC = hostOf(doc) === 'c';
   const own = isC ? cFileSource(doc.uri, doc.text, options) : undefined;
   const fromSources = new Map<string, { source?: IdentifierSource; problem?: string }>();
@@ -77,7 +77,7 @@ function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: Analy
       }
     }
     used.add(source);
-    const context = { uri: doc.uri, line: lineOf(starts, raw.headerSpan.start) + 1, options, source };
+    const context = { uri: doc.uri, line: lines.lineOf(raw.headerSpan.start) + 1, options, source };
     const result = cache ? cache.analyzeBlock(raw, context) : analyzeBlock(raw, context);
     result.findings.unshift(...extra);
     analysis.blocks.push(result);

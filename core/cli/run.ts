@@ -31,7 +31,9 @@ export function checkFiles(files: string[], options: AnalyzeOptions, display: (f
     const text = readText(file, options.maxFileBytes) ?? '';
     const analysis = analyzeDocument({ uri: file, text, languageId: languageOf(file) }, options);
     if (analysis.blocks.length === 0 && analysis.findings.length === 0) continue;
-    checked.push({ file, display: display(file), text, starts: lineStarts(text), analysis });
+    // Line starts only for a file with something to locate: a clean file is never walked twice.
+    let starts: number[] | undefined;
+    checked.push({ file, display: display(file), text, get starts() { return (starts ??= lineStarts(text)); }, analysis });
   }
   return checked;
 }

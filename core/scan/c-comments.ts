@@ -98,35 +98,79 @@ function numberEnd(text: string, from: number): number {
   return i;
 }
 
-export function findComments(text: string): CComment[] {
-  const comments: CComment[] = [];
-  let i = 0;
-  while (i < text.length) {
+/** Characters a name or a preprocessing number may hold, walked back over to find where a token begins. */
+function isTokenChar(ch: number): boolean {
+  return isIdentChar(ch) || ch === 46 || ch === 43 || ch === 45 || ch === 39;
+}
+
+/**
+ * Steps over names, numbers and punctuation from `from` (a token boundary) until reaching `to`; returns where it
+ * stopped, past `to` when a number's digit separator or a raw string starting before `to` takes it in.
+ */
+function skipCode(text: string, from: number, to: number): number {
+  let i = from;
+  while (i < to) {
     const ch = text.charCodeAt(i);
-    const next = text.charCodeAt(i + 1);
-    if (ch === 47 && next === 47) {
-      const end = lineCommentEnd(text, i + 2);
-      comments.push({ kind: 'line', start: i, end, closeAt: end, terminated: true });
-      i = end;
-    } else if (ch === 47 && next === 42) {
-      const close = text.indexOf('*/', i + 2);
-      const closeAt = close < 0 ? text.length : close;
-      const end = close < 0 ? text.length : close + 2;
-      comments.push({ kind: 'block', start: i, end, closeAt, terminated: close >= 0 });
-      i = end;
-    } else if (ch === 34 || ch === 39) {
-      i = quotedEnd(text, i, ch);
-    } else if (isIdentStart(ch)) {
+    if (isIdentStart(ch)) {
       const start = i;
       while (i < text.length && isIdentChar(text.charCodeAt(i))) i++;
       if (text.charCodeAt(i) === 34 && RAW_PREFIXES.has(text.slice(start, i))) {
         const end = rawStringEnd(text, i);
         i = end < 0 ? quotedEnd(text, i, 34) : end;
       }
-    } else if (isDigit(ch) || (ch === 46 && isDigit(next))) {
+    } else if (isDigit(ch) || (ch === 46 && isDigit(text.charCodeAt(i + 1)))) {
       i = numberEnd(text, i);
     } else {
       i++;
+    }
+  }
+  return i;
+}
+
+/**
+ * Only `/`, `"` and `'` open a comment or a literal, so the native string search jumps from one to the next.
+ * Names and numbers matter only next to a quote (`R"(`, `1'000`): from the last character that cannot be part
+ * of a token before the quote, the same token rules are walked forward as a full character scan would.
+ */
+export function findComments(text: string): CComment[] {
+  const comments: CComment[] = [];
+  let slash = text.indexOf('/');
+  let double = text.indexOf('"');
+  let single = text.indexOf("'");
+  let i = 0;
+  for (;;) {
+    if (slash >= 0 && slash < i) slash = text.indexOf('/', i);
+    if (double >= 0 && double < i) double = text.indexOf('"', i);
+    if (single >= 0 && single < i) single = text.indexOf("'", i);
+    let at = slash;
+    if (double >= 0 && (at < 0 || double < at)) at = double;
+    if (single >= 0 && (at < 0 || single < at)) at = single;
+    if (at < 0) break;
+    const ch = text.charCodeAt(at);
+    if (ch !== 47) {
+      let from = at;
+      while (from > i && isTokenChar(text.charCodeAt(from - 1))) from--;
+      const reached = skipCode(text, from, at);
+      if (reached > at) {
+        i = reached;
+        continue;
+      }
+      i = quotedEnd(text, at, ch);
+      continue;
+    }
+    const next = text.charCodeAt(at + 1);
+    if (next === 47) {
+      const end = lineCommentEnd(text, at + 2);
+      comments.push({ kind: 'line', start: at, end, closeAt: end, terminated: true });
+      i = end;
+    } else if (next === 42) {
+      const close = text.indexOf('*/', at + 2);
+      const closeAt = close < 0 ? text.length : close;
+      const end = close < 0 ? text.length : close + 2;
+      comments.push({ kind: 'block', start: at, end, closeAt, terminated: close >= 0 });
+      i = end;
+    } else {
+      i = at + 1;
     }
   }
   return comments;

@@ -4,6 +4,11 @@
 /** Offsets at which each line starts; always begins with 0. */
 export function lineStarts(text: string): number[] {
   const starts = [0];
+  // Most files have no carriage return at all: then the native search finds each line feed.
+  if (text.indexOf('\r') < 0) {
+    for (let i = text.indexOf('\n'); i >= 0; i = text.indexOf('\n', i + 1)) starts.push(i + 1);
+    return starts;
+  }
   for (let i = 0; i < text.length; i++) {
     const ch = text.charCodeAt(i);
     if (ch === 10) {
@@ -26,6 +31,40 @@ export function lineOf(starts: number[], offset: number): number {
     else high = mid - 1;
   }
   return low;
+}
+
+/**
+ * 0-based lines of offsets asked in increasing order, counted forward from the last one asked: a document's
+ * block headers need their lines without a table of every line. An earlier offset counts again from the start.
+ */
+export class LineCounter {
+  private offset = 0;
+  private line = 0;
+  private readonly carriageReturns: boolean;
+
+  constructor(private readonly text: string) {
+    this.carriageReturns = text.indexOf('\r') >= 0;
+  }
+
+  lineOf(offset: number): number {
+    if (offset < this.offset) {
+      this.offset = 0;
+      this.line = 0;
+    }
+    const text = this.text;
+    const to = Math.min(offset, text.length);
+    let line = this.line;
+    // A line starts after each \n before the offset, and after each \r not followed by \n.
+    for (let i = text.indexOf('\n', this.offset); i >= 0 && i < to; i = text.indexOf('\n', i + 1)) line++;
+    if (this.carriageReturns) {
+      for (let i = text.indexOf('\r', this.offset); i >= 0 && i < to; i = text.indexOf('\r', i + 1)) {
+        if (text.charCodeAt(i + 1) !== 10) line++;
+      }
+    }
+    this.offset = to;
+    this.line = line;
+    return line;
+  }
 }
 
 /** One physical line: `start` to `end` excludes the line break; `next` is where the following line starts. */

@@ -56,6 +56,8 @@ const fragments = [
   '/* W */', '// W\n', '"W /* W"', "'\"'", "'/'", '"\\"/* W"', 'R"d(W */ /* W)d"', "1'0", ' W ', '\n',
   '/* W\n * W */', '"a\\\\"', '// W \\\n W\n', 'a/b', '"//W"', '/**/W', '/*/ W */', 'u8"W"', "L'x'",
   ' x/ /W\n', '// W */ W\n', ' */ W ', '//W\r\n', ';',
+  // Names and numbers right before a quote: a raw string after `.` or a name, a pp-number that takes `R` in.
+  'a.R"d(W /* W)d"', ' 1.R"W"', ' x1 R"q(/* W)q"', "1e+1'0 /* W */", ' 0x1p-2 ', ' .5R"/* W"',
 ];
 
 describe('findComments agrees with gcc -E on what is a comment', function () {
