@@ -66,7 +66,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   }
 
   if (raw.host === 'c') findings.push(...unsignedSuffixHints(raw));
-  const plan = buildPlan(raw, model, context.source, dataModel);
+  const plan = buildPlan(raw, model, context.source, dataModel, entries);
   findings.push(...plan.findings);
   findings.push(...seriesFindings(raw, model, context.uri));
   analysis.identifiers = plan.identifiers;

@@ -71,8 +71,20 @@ export function finiteOnly(results: Record<string, number>): Record<string, numb
 
 const preference = ['frequency', 'period', 'width', 'time', 'duty', 'baud', 'load', 'counts'];
 
+const measuresByModel = new WeakMap<CircuitModel, Map<Dim, string | undefined>>();
+
 /** The result a claimed unit speaks of: `Hz` frequency, `s` period (or width, time), `%` duty, `baud` rate. */
 export function measureFor(model: CircuitModel, dim: Dim): string | undefined {
+  // Answered once per model and unit: every `expect:` item of every block asks.
+  let measures = measuresByModel.get(model);
+  if (!measures) measuresByModel.set(model, (measures = new Map()));
+  if (measures.has(dim)) return measures.get(dim);
+  const measure = findMeasure(model, dim);
+  measures.set(dim, measure);
+  return measure;
+}
+
+function findMeasure(model: CircuitModel, dim: Dim): string | undefined {
   const candidates = model.results.filter((r) => {
     if (dim === '%') return r.percent === true;
     if (dim === 'baud') return r.key === 'baud';

@@ -34,13 +34,14 @@ export interface Plan {
   slots: Map<string, Slot>;
   /** Order in which quantity keys get their values: given slots and defaults interleaved. */
   order: string[];
-  externals: Record<string, number>;
   externalLookups: Map<string, IdentifierLookup & { ok: true }>;
   choices: Record<string, string>;
   lists: Record<string, IntegerSet>;
   unknowns: Unknown[];
   findings: Finding[];
   identifiers: ResolvedIdentifier[];
+  /** Steps of evaluateParams, resolved on its first call. */
+  replay?: Replay;
 }
 
 function identifiersOf(node: ValueNode, out: Array<{ name: string; span: Span }> = []): Array<{ name: string; span: Span }> {
@@ -63,15 +64,40 @@ function error(code: string, message: string, span: Span): Finding {
   return { severity: 'error', code, message, span };
 }
 
-/** Builds the plan; every problem becomes a finding and the plan stays usable for what did resolve. */
-export function buildPlan(raw: RawBlock, model: CircuitModel, source: IdentifierSource, dataModel: DataModelName): Plan {
+interface ModelKeys {
+  /** Every parameter by key (the first, should a table repeat one). */
+  params: Map<string, CircuitModel['params'][number]>;
+  quantities: Map<string, QuantityParam>;
+  quantityList: QuantityParam[];
+}
+
+const keysByModel = new WeakMap<CircuitModel, ModelKeys>();
+
+/** A model's parameter table by key, built once per model: plans are built per block and per edit. */
+function modelKeys(model: CircuitModel): ModelKeys {
+  let keys = keysByModel.get(model);
+  if (!keys) {
+    const params = new Map<string, CircuitModel['params'][number]>();
+    for (const p of model.params) if (!params.has(p.key)) params.set(p.key, p);
+    const quantityList = model.params.filter((p): p is QuantityParam => p.kind === 'quantity');
+    keys = { params, quantities: new Map(quantityList.map((p) => [p.key, p])), quantityList };
+    keysByModel.set(model, keys);
+  }
+  return keys;
+}
+
+/**
+ * Builds the plan; every problem becomes a finding and the plan stays usable for what did resolve. `entries` is
+ * the block's entries by key when the caller has them already.
+ */
+export function buildPlan(raw: RawBlock, model: CircuitModel, source: IdentifierSource, dataModel: DataModelName, entries?: Map<string, BlockEntry>): Plan {
+  const keys = modelKeys(model);
   const plan: Plan = {
     model,
     name: raw.name,
-    entries: new Map(raw.entries.map((e) => [e.key, e])),
+    entries: entries ?? new Map(raw.entries.map((e) => [e.key, e])),
     slots: new Map(),
     order: [],
-    externals: Object.create(null),
     externalLookups: new Map(),
     choices: {},
     lists: {},
@@ -79,15 +105,13 @@ export function buildPlan(raw: RawBlock, model: CircuitModel, source: Identifier
     findings: [],
     identifiers: [],
   };
-  const quantityKeys = new Map<string, QuantityParam>();
-  for (const spec of model.params) if (spec.kind === 'quantity') quantityKeys.set(spec.key, spec);
-  const paramKeys = model.params.map((p) => p.key);
+  const quantityKeys = keys.quantities;
 
   for (const entry of raw.entries) {
     if (isMetaEntry(entry.key, entry.valueText)) continue;
-    const spec = model.params.find((p) => p.key === entry.key);
+    const spec = keys.params.get(entry.key);
     if (!spec) {
-      const hint = entry.key === 'from' ? ' (a firmware file for `from:` ends in .h, .c, .hpp …)' : didYouMean(entry.key, [...paramKeys, ...metaKeys]);
+      const hint = entry.key === 'from' ? ' (a firmware file for `from:` ends in .h, .c, .hpp …)' : didYouMean(entry.key, [...model.params.map((p) => p.key), ...metaKeys]);
       plan.findings.push({
         severity: 'warning',
         code: Code.keyUnknown,
@@ -153,14 +177,13 @@ function compileSlot(
       blockRefs.push([ident.name, asKey]);
       continue;
     }
-    if (ident.name in plan.externals) continue;
+    if (plan.externalLookups.has(ident.name)) continue;
     const found = source.lookup(ident.name, dataModel);
     if (!found.ok) {
       plan.findings.push(error(found.code || Code.identifierUnknown, found.message, ident.span));
       failed = true;
       continue;
     }
-    plan.externals[ident.name] = found.value;
     plan.externalLookups.set(ident.name, found);
     plan.identifiers.push(found.identifier);
   }
@@ -181,7 +204,11 @@ function compileSlot(
     return undefined;
   }
   const soleIdentifier = expr.kind === 'ident' && blockRefs.length === 0 ? expr.name : undefined;
-  return { key: spec.key, spec, entry, evaluate: compileValue(expr), blockRefs, tolerance, soleIdentifier };
+  // Firmware constants are fixed for the plan: compiled in as numbers, so only block references read the
+  // environment, and a name one slot reads from firmware and another as a block key cannot collide.
+  const refNames = new Set(blockRefs.map(([name]) => name));
+  const constant = (name: string) => (refNames.has(name) ? undefined : plan.externalLookups.get(name)?.value);
+  return { key: spec.key, spec, entry, evaluate: compileValue(expr, constant), blockRefs, tolerance, soleIdentifier };
 }
 
 /** An absolute tolerance must be in its value's unit: `r: 10k ±1 V` cannot mean ±1 Ω. */
@@ -215,7 +242,7 @@ function evaluationOrder(plan: Plan, raw: RawBlock): string[] {
   const order: string[] = [];
   const done = new Set<string>();
   const unknownKeys = new Set(plan.unknowns.map((u) => u.key));
-  const quantitySpecs = plan.model.params.filter((p): p is QuantityParam => p.kind === 'quantity');
+  const quantitySpecs = modelKeys(plan.model).quantityList;
   const probe: Record<string, number> = {};
   for (const k of unknownKeys) probe[k] = 1;
   let progress = true;
@@ -276,18 +303,6 @@ function applyTolerance(value: number, tolerance: Tolerance, u: number): number 
   return tolerance.kind === 'relative' ? value * (1 + amount) : value + amount;
 }
 
-const specsByModel = new WeakMap<CircuitModel, Map<string, QuantityParam>>();
-
-/** A model's quantity parameters by key, built once: evaluateParams runs per Monte Carlo sample. */
-function quantitySpecs(model: CircuitModel): Map<string, QuantityParam> {
-  let specs = specsByModel.get(model);
-  if (!specs) {
-    specs = new Map(model.params.filter((p): p is QuantityParam => p.kind === 'quantity').map((p) => [p.key, p]));
-    specsByModel.set(model, specs);
-  }
-  return specs;
-}
-
 interface Step {
   key: string;
   slot?: Slot;
@@ -296,32 +311,28 @@ interface Step {
 
 interface Replay {
   steps: Step[];
-  /** Identifier environment shared by every replay, when no block reference can shadow a firmware name. */
-  env?: Record<string, number>;
+  /**
+   * Block references by the names they are written with, shared by every replay: each slot writes its own
+   * references before it reads them, and firmware names are compiled into the slots.
+   */
+  env: Record<string, number>;
 }
-
-const replays = new WeakMap<Plan, Replay>();
 
 /** The plan's keys resolved to their slot or default once: evaluateParams runs per Monte Carlo sample. */
 function replayOf(plan: Plan): Replay {
-  let replay = replays.get(plan);
-  if (!replay) {
-    const specs = quantitySpecs(plan.model);
+  if (!plan.replay) {
+    const specs = modelKeys(plan.model).quantities;
     const steps = plan.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) }));
-    // A slot's own key spelled as an identifier reads the firmware; another slot may write the same name as a
-    // block reference, so such a plan gets a fresh environment per evaluation.
-    const shadowed = steps.some((s) => s.slot?.blockRefs.some(([name]) => name in plan.externals));
-    replay = { steps, env: shadowed ? undefined : Object.assign(Object.create(null), plan.externals) };
-    replays.set(plan, replay);
+    plan.replay = { steps, env: Object.create(null) };
   }
-  return replay;
+  return plan.replay;
 }
 
 /** Evaluates every quantity key in plan order; `overrides` replace a key (solved or trial values). */
 export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> {
   const values: Record<string, number> = {};
   const replay = replayOf(plan);
-  const env: Record<string, number> = replay.env ?? Object.assign(Object.create(null), plan.externals);
+  const env = replay.env;
   for (const { key, slot, spec } of replay.steps) {
     let value: number;
     if (overrides && key in overrides) value = overrides[key];

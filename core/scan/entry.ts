@@ -20,9 +20,11 @@ export function readEntryLine(text: string, from: number, to: number): LineReadi
   const start = skipBlanks(text, from, to);
   const end = trimEnd(text, start, to);
   if (start === end) return { kind: 'blank' };
-  const colon = text.indexOf(':', start);
+  // Searched within the line only: a line without `:` must not send the search on through the file.
+  let colon = start;
+  while (colon < end && text.charCodeAt(colon) !== 58) colon++;
   const span = { start, end };
-  if (colon < 0 || colon >= end) {
+  if (colon >= end) {
     return { kind: 'malformed', span, message: 'Expected `key: value`; this line has no `:`.' };
   }
   const keyEnd = trimEnd(text, start, colon);
