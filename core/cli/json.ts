@@ -26,12 +26,12 @@ function block(analysis: BlockAnalysis, file: CheckedFile) {
     name: analysis.name,
     line: analysis.line,
     circuit: analysis.circuit ?? null,
-    params: { ...analysis.params, ...analysis.choices },
+    params: Object.assign({}, analysis.params, analysis.choices),
     values: analysis.values,
   };
   if (analysis.spread) out.spread = analysis.spread;
   if (analysis.solved) out.solved = analysis.solved;
-  if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => ({ ...i }));
+  if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => Object.assign({}, i));
   out.diagnostics = analysis.findings.map((f) => diagnostic(f, file));
   return out;
 }

@@ -2,7 +2,7 @@
 // `key: value` right after it (a run of `//` lines, or the lines of one `/* */`), up to the first other line.
 import type { RawBlock, Span } from '../types';
 import { Code } from '../codes';
-import { lineAt, skipBlanks, trimEnd } from './lines';
+import { lineEndAt, nextLineAt, skipBlanks, trimEnd } from './lines';
 import { EntryCollector, readEntryLine } from './entry';
 import { ignoredHeaderText, readHeaderName, startsWithWord, type HeaderName } from './header';
 import { findComments, type CComment } from './c-comments';
@@ -33,21 +33,19 @@ class BlockBuilder {
   }
 
   build(): RawBlock {
-    return {
-      host: 'c',
-      ...(this.name.name !== undefined ? { name: this.name.name, nameSpan: this.name.nameSpan } : {}),
-      headerSpan: this.headerSpan,
-      span: { start: this.headerSpan.start, end: this.lastEnd },
-      entries: this.collector.entries,
-      findings: this.collector.findings,
-    };
+    const span = { start: this.headerSpan.start, end: this.lastEnd };
+    const { entries, findings } = this.collector;
+    // Two literals rather than a spread of the optional name: one block per header in the file.
+    const { name, nameSpan } = this.name;
+    if (name === undefined) return { host: 'c', headerSpan: this.headerSpan, span, entries, findings };
+    return { host: 'c', name, nameSpan, headerSpan: this.headerSpan, span, entries, findings };
   }
 }
 
 /** A header `@timing [name]` in text[from, to), or undefined. */
 function header(text: string, from: number, to: number): BlockBuilder | undefined {
   const at = skipBlanks(text, from, to);
-  if (!startsWithWord(text, at, to, '@timing')) return undefined;
+  if (text.charCodeAt(at) !== 64 || !startsWithWord(text, at, to, '@timing')) return undefined;
   const end = trimEnd(text, at, to);
   return new BlockBuilder({ start: at, end }, readHeaderName(text, at + '@timing'.length, end), text);
 }
@@ -64,19 +62,19 @@ function skipStars(text: string, from: number, to: number): number {
 }
 
 /** Whether `start` is the first non-blank of the line right after the one ending at `prevEnd`. */
-function onNextLineAlone(text: string, prevEnd: number, start: number): boolean {
-  const following = lineAt(text, prevEnd).next;
+function onNextLineAlone(text: string, prevEnd: number, start: number, carriageReturns: boolean): boolean {
+  const following = nextLineAt(text, lineEndAt(text, prevEnd, carriageReturns));
   return following <= start && skipBlanks(text, following, start) === start;
 }
 
-function scanBlockComment(text: string, comment: CComment, out: RawBlock[]): void {
+function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carriageReturns: boolean): void {
   const found: RawBlock[] = [];
   let open: BlockBuilder | undefined;
   let pos = comment.start + 2;
   let first = true;
   while (pos <= comment.closeAt) {
-    const line = lineAt(text, pos);
-    const to = Math.min(line.end, comment.closeAt);
+    const lineEnd = lineEndAt(text, pos, carriageReturns);
+    const to = Math.min(lineEnd, comment.closeAt);
     // The first line follows `/*` (`/**`, `/*!` too); later lines may lead with `*`.
     const from = first ? skipMarks(text, pos, to, 42) : skipStars(text, skipBlanks(text, pos, to), to);
     first = false;
@@ -88,8 +86,9 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[]): voi
       found.push(open.build());
       open = undefined;
     }
-    if (line.next <= pos || line.end >= comment.closeAt) break;
-    pos = line.next;
+    const next = nextLineAt(text, lineEnd);
+    if (next <= pos || lineEnd >= comment.closeAt) break;
+    pos = next;
   }
   if (open) found.push(open.build());
   if (!comment.terminated) {
@@ -107,17 +106,18 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[]): voi
 
 export function scanC(text: string): RawBlock[] {
   const blocks: RawBlock[] = [];
+  const carriageReturns = text.indexOf('\r') >= 0;
   let run: BlockBuilder | undefined;
   for (const comment of findComments(text)) {
     if (comment.kind === 'block') {
       if (run) blocks.push(run.build());
       run = undefined;
-      scanBlockComment(text, comment, blocks);
+      scanBlockComment(text, comment, blocks, carriageReturns);
       continue;
     }
     const from = skipMarks(text, comment.start + 2, comment.end, 47);
-    const to = lineAt(text, comment.start).end;
-    if (run && !onNextLineAlone(text, run.lastCommentEnd, comment.start)) {
+    const to = lineEndAt(text, comment.start, carriageReturns);
+    if (run && !onNextLineAlone(text, run.lastCommentEnd, comment.start, carriageReturns)) {
       blocks.push(run.build());
       run = undefined;
     }

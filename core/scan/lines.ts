@@ -86,6 +86,30 @@ export function lineAt(text: string, start: number): LineRange {
   return { start, end: i, next: i };
 }
 
+/**
+ * End of the line holding `start` (the offset of its line break, or text.length). `carriageReturns` says whether
+ * the text holds any `\r`: without one the native search for `\n` finds the end.
+ */
+export function lineEndAt(text: string, start: number, carriageReturns: boolean): number {
+  if (!carriageReturns) {
+    const lineFeed = text.indexOf('\n', start);
+    return lineFeed < 0 ? text.length : lineFeed;
+  }
+  let i = start;
+  while (i < text.length) {
+    const ch = text.charCodeAt(i);
+    if (ch === 10 || ch === 13) return i;
+    i++;
+  }
+  return i;
+}
+
+/** Where the line after the one ending at `end` (from lineEndAt) starts. */
+export function nextLineAt(text: string, end: number): number {
+  if (end >= text.length) return text.length;
+  return text.charCodeAt(end) === 13 && text.charCodeAt(end + 1) === 10 ? end + 2 : end + 1;
+}
+
 /** Blank for trimming: space, tab, form feed, vertical tab, no-break space, BOM. */
 export function isBlank(ch: number): boolean {
   return ch === 32 || ch === 9 || ch === 12 || ch === 11 || ch === 0xa0 || ch === 0xfeff;

@@ -108,14 +108,10 @@ export function scanMarkdown(text: string): RawBlock[] {
         span: headerSpan,
       });
     }
-    blocks.push({
-      host: 'markdown',
-      ...(name !== undefined ? { name, nameSpan } : {}),
-      headerSpan,
-      span: { start: fence.at, end: Math.max(lastEnd, headerSpan.end) },
-      entries: collector.entries,
-      findings,
-    });
+    const span = { start: fence.at, end: Math.max(lastEnd, headerSpan.end) };
+    const entries = collector.entries;
+    if (name === undefined) blocks.push({ host: 'markdown', headerSpan, span, entries, findings });
+    else blocks.push({ host: 'markdown', name, nameSpan, headerSpan, span, entries, findings });
   }
   return blocks;
 }

@@ -106,5 +106,10 @@ export function splitTolerance(tokens: Token[]): ToleranceSplit {
     findings.push(error(Code.valueTolerance, 'a tolerance below −100 % would make the value negative', parts.toleranceSpan!));
     parts = { toleranceSpan: parts.toleranceSpan };
   }
-  return { body, ...parts, findings };
+  // Spelled out rather than spread: this runs for every value of every block.
+  const split: ToleranceSplit = { body, findings };
+  if (parts.tolerance) split.tolerance = parts.tolerance;
+  if (parts.toleranceSpan) split.toleranceSpan = parts.toleranceSpan;
+  if (parts.toleranceDim) split.toleranceDim = parts.toleranceDim;
+  return split;
 }
