@@ -4,7 +4,7 @@ import type { CircuitModel } from '../circuits/model';
 import { compileValue, dimOf, parseValue, splitList } from '../value';
 import { Code } from '../codes';
 import { measureFor } from './measure';
-import { describeDim, toleranceMismatch } from './plan';
+import { describeDim, toleranceMismatch } from './dims';
 
 export interface Claim {
   measure: string;

@@ -1,7 +1,8 @@
 // Running a plan through its model, and choosing which result a claimed or targeted unit speaks of.
 import type { Dim } from '../types';
 import type { CircuitModel, ModelInput, ModelIssue, QuantityParam } from '../circuits/model';
-import { evaluateParams, type Offsets, type Plan } from './plan';
+import type { Plan } from './plan';
+import { evaluateParams, type Offsets } from './evaluate';
 
 export function modelInput(plan: Plan, values: Readonly<Record<string, number>>): ModelInput {
   return { values, choices: plan.choices, lists: plan.lists, name: plan.name };

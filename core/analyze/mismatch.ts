@@ -7,7 +7,8 @@ import { formatSignedPercent } from '../format';
 import type { BlockContext } from './block';
 import { meetsClaim, type Claim } from './claims';
 import { computeAt, modelInput } from './measure';
-import { evaluateParams, type Plan, type Slot } from './plan';
+import type { Plan, Slot } from './plan';
+import { evaluateParams } from './evaluate';
 import { solveContinuous } from './solve';
 import { formatResult } from '../present/values';
 

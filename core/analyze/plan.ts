@@ -1,11 +1,14 @@
 // Turns a scanned block into an evaluation plan: each parameter compiled once, replayed many times
 // (nominal, tolerance corners, Monte Carlo samples, solver steps) without parsing again.
-import type { BlockEntry, Dim, Finding, RawBlock, ResolvedIdentifier, Span, Tolerance } from '../types';
+import type { BlockEntry, Finding, RawBlock, ResolvedIdentifier, Span, Tolerance } from '../types';
 import type { CircuitModel, IntegerSet, QuantityParam } from '../circuits/model';
 import { compileValue, dimOf, parseIntegerSet, parseValue, type ValueNode } from '../value';
 import { Code } from '../codes';
 import type { DataModelName, IdentifierLookup, IdentifierSource } from './context';
 import { didYouMean, isMetaEntry, metaKeys } from './keys';
+import { describeDim, toleranceMismatch } from './dims';
+import type { Replay } from './evaluate';
+import { evaluationOrder } from './order';
 
 export interface Slot {
   key: string;
@@ -60,7 +63,7 @@ function identifiersOf(node: ValueNode, out: Array<{ name: string; span: Span }>
   return out;
 }
 
-function error(code: string, message: string, span: Span): Finding {
+export function error(code: string, message: string, span: Span): Finding {
   return { severity: 'error', code, message, span };
 }
 
@@ -74,7 +77,7 @@ interface ModelKeys {
 const keysByModel = new WeakMap<CircuitModel, ModelKeys>();
 
 /** A model's parameter table by key, built once per model: plans are built per block and per edit. */
-function modelKeys(model: CircuitModel): ModelKeys {
+export function modelKeys(model: CircuitModel): ModelKeys {
   let keys = keysByModel.get(model);
   if (!keys) {
     const params = new Map<string, CircuitModel['params'][number]>();
@@ -209,148 +212,4 @@ function compileSlot(
   const refNames = new Set(blockRefs.map(([name]) => name));
   const constant = (name: string) => (refNames.has(name) ? undefined : plan.externalLookups.get(name)?.value);
   return { key: spec.key, spec, entry, evaluate: compileValue(expr, constant), blockRefs, tolerance, soleIdentifier };
-}
-
-/** An absolute tolerance must be in its value's unit: `r: 10k ±1 V` cannot mean ±1 Ω. */
-export function toleranceMismatch(tolerance: Tolerance | undefined, toleranceDim: Dim | undefined, valueDim: Dim, key: string, valueWords: string): string | undefined {
-  if (tolerance?.kind !== 'absolute' || !toleranceDim || toleranceDim === valueDim) return undefined;
-  return `the tolerance of \`${key}\` is ${describeDim(toleranceDim)}, but \`${key}\` is ${valueWords}: give it in the same unit or as a percentage`;
-}
-
-const dimWords: Record<string, string> = {
-  'Ω': 'a resistance (Ω)',
-  F: 'a capacitance (F)',
-  V: 'a voltage (V)',
-  Hz: 'a frequency (Hz)',
-  s: 'a time (s)',
-  A: 'a current (A)',
-  '': 'a plain number',
-  '%': 'a percentage',
-  baud: 'a baud rate',
-  other: 'a compound unit',
-};
-
-export function describeDim(dim: string): string {
-  return dimWords[dim] ?? dim;
-}
-
-/**
- * The order in which quantity keys get values: a given key once the keys it names have theirs, a default once
- * its inputs exist. Found once by a fixed-point pass, then replayed for every evaluation.
- */
-function evaluationOrder(plan: Plan, raw: RawBlock): string[] {
-  const order: string[] = [];
-  const done = new Set<string>();
-  const unknownKeys = new Set(plan.unknowns.map((u) => u.key));
-  const quantitySpecs = modelKeys(plan.model).quantityList;
-  const probe: Record<string, number> = {};
-  for (const k of unknownKeys) probe[k] = 1;
-  let progress = true;
-  while (progress) {
-    progress = false;
-    for (const spec of quantitySpecs) {
-      if (done.has(spec.key)) continue;
-      const slot = plan.slots.get(spec.key);
-      if (unknownKeys.has(spec.key)) {
-        done.add(spec.key);
-        order.push(spec.key);
-        progress = true;
-      } else if (slot) {
-        if (slot.blockRefs.every(([, key]) => done.has(key))) {
-          done.add(spec.key);
-          order.push(spec.key);
-          probe[spec.key] = 1;
-          progress = true;
-        }
-      } else if (!plan.entries.has(spec.key) && spec.default !== undefined) {
-        const value = typeof spec.default === 'number' ? spec.default : spec.default(probeValues(plan, order, probe));
-        if (Number.isFinite(value)) {
-          done.add(spec.key);
-          order.push(spec.key);
-          probe[spec.key] = value;
-          progress = true;
-        }
-      }
-    }
-  }
-  for (const spec of quantitySpecs) {
-    if (done.has(spec.key)) continue;
-    const slot = plan.slots.get(spec.key);
-    if (slot) {
-      const names = slot.blockRefs.map(([, key]) => key).filter((k) => !done.has(k));
-      plan.findings.push(
-        error(Code.identifierCycle, `\`${spec.key}\` depends on ${names.map((n) => `\`${n}\``).join(', ')}, which ${names.length > 1 ? 'have' : 'has'} no value (a cycle, or a missing key)`, slot.entry.valueSpan),
-      );
-    } else if (!plan.entries.has(spec.key) && !spec.optional && spec.default === undefined) {
-      // A key with a default is only missing when its inputs are, and those are reported themselves.
-      plan.findings.push(error(Code.keyRequired, `${plan.model.id} needs \`${spec.key}\` (${spec.label})`, raw.headerSpan));
-    }
-  }
-  return order;
-}
-
-function probeValues(plan: Plan, order: string[], probe: Record<string, number>): Record<string, number> {
-  const values: Record<string, number> = {};
-  for (const key of order) values[key] = probe[key];
-  return values;
-}
-
-/** Tolerance offsets: u in [−1, 1] per toleranced key, +1 at the top of its tolerance, −1 at the bottom. */
-export type Offsets = Readonly<Record<string, number>>;
-
-function applyTolerance(value: number, tolerance: Tolerance, u: number): number {
-  const amount = u >= 0 ? u * tolerance.plus : u * tolerance.minus;
-  return tolerance.kind === 'relative' ? value * (1 + amount) : value + amount;
-}
-
-interface Step {
-  key: string;
-  slot?: Slot;
-  spec?: QuantityParam;
-}
-
-interface Replay {
-  steps: Step[];
-  /**
-   * Block references by the names they are written with, shared by every replay: each slot writes its own
-   * references before it reads them, and firmware names are compiled into the slots.
-   */
-  env: Record<string, number>;
-}
-
-/** The plan's keys resolved to their slot or default once: evaluateParams runs per Monte Carlo sample. */
-function replayOf(plan: Plan): Replay {
-  if (!plan.replay) {
-    const specs = modelKeys(plan.model).quantities;
-    const steps = plan.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) }));
-    plan.replay = { steps, env: Object.create(null) };
-  }
-  return plan.replay;
-}
-
-/** Evaluates every quantity key in plan order; `overrides` replace a key (solved or trial values). */
-export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> {
-  const values: Record<string, number> = {};
-  const replay = replayOf(plan);
-  const env = replay.env;
-  for (const { key, slot, spec } of replay.steps) {
-    let value: number;
-    if (overrides && key in overrides) value = overrides[key];
-    else if (slot) {
-      const refs = slot.blockRefs;
-      for (let i = 0; i < refs.length; i++) env[refs[i][0]] = values[refs[i][1]];
-      value = slot.evaluate(env);
-      if (slot.tolerance && offsets && offsets[key]) value = applyTolerance(value, slot.tolerance, offsets[key]);
-    } else {
-      if (!spec || spec.default === undefined) continue;
-      value = typeof spec.default === 'number' ? spec.default : spec.default(values);
-    }
-    values[key] = value;
-  }
-  return values;
-}
-
-/** Keys whose given value carries a tolerance. */
-export function tolerancedKeys(plan: Plan): string[] {
-  return [...plan.slots.values()].filter((s) => s.tolerance && (s.tolerance.plus > 0 || s.tolerance.minus > 0)).map((s) => s.key);
 }

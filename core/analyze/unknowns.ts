@@ -6,7 +6,8 @@ import { formatQuantity, formatSignedPercent } from '../format';
 import type { BlockContext } from './block';
 import { meetsClaim, parseClaims } from './claims';
 import { computeAt, modelInput } from './measure';
-import { evaluateParams, type Plan } from './plan';
+import type { Plan } from './plan';
+import { evaluateParams } from './evaluate';
 import { snapToSeries, solveContinuous } from './solve';
 
 export function solveUnknowns(

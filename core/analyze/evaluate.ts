@@ -1,0 +1,65 @@
+// Replaying a plan: every quantity key evaluated in plan order, with tolerance offsets and overrides. This runs
+// for every corner, Monte Carlo sample and solver step, so the plan's steps are resolved once.
+import type { Tolerance } from '../types';
+import type { QuantityParam } from '../circuits/model';
+import { modelKeys, type Plan, type Slot } from './plan';
+
+/** Tolerance offsets: u in [−1, 1] per toleranced key, +1 at the top of its tolerance, −1 at the bottom. */
+export type Offsets = Readonly<Record<string, number>>;
+
+function applyTolerance(value: number, tolerance: Tolerance, u: number): number {
+  const amount = u >= 0 ? u * tolerance.plus : u * tolerance.minus;
+  return tolerance.kind === 'relative' ? value * (1 + amount) : value + amount;
+}
+
+interface Step {
+  key: string;
+  slot?: Slot;
+  spec?: QuantityParam;
+}
+
+export interface Replay {
+  steps: Step[];
+  /**
+   * Block references by the names they are written with, shared by every replay: each slot writes its own
+   * references before it reads them, and firmware names are compiled into the slots.
+   */
+  env: Record<string, number>;
+}
+
+/** The plan's keys resolved to their slot or default once: evaluateParams runs per Monte Carlo sample. */
+function replayOf(plan: Plan): Replay {
+  if (!plan.replay) {
+    const specs = modelKeys(plan.model).quantities;
+    const steps = plan.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) }));
+    plan.replay = { steps, env: Object.create(null) };
+  }
+  return plan.replay;
+}
+
+/** Evaluates every quantity key in plan order; `overrides` replace a key (solved or trial values). */
+export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> {
+  const values: Record<string, number> = {};
+  const replay = replayOf(plan);
+  const env = replay.env;
+  for (const { key, slot, spec } of replay.steps) {
+    let value: number;
+    if (overrides && key in overrides) value = overrides[key];
+    else if (slot) {
+      const refs = slot.blockRefs;
+      for (let i = 0; i < refs.length; i++) env[refs[i][0]] = values[refs[i][1]];
+      value = slot.evaluate(env);
+      if (slot.tolerance && offsets && offsets[key]) value = applyTolerance(value, slot.tolerance, offsets[key]);
+    } else {
+      if (!spec || spec.default === undefined) continue;
+      value = typeof spec.default === 'number' ? spec.default : spec.default(values);
+    }
+    values[key] = value;
+  }
+  return values;
+}
+
+/** Keys whose given value carries a tolerance. */
+export function tolerancedKeys(plan: Plan): string[] {
+  return [...plan.slots.values()].filter((s) => s.tolerance && (s.tolerance.plus > 0 || s.tolerance.minus > 0)).map((s) => s.key);
+}
