@@ -68,9 +68,6 @@ export function finiteOnly(results: Record<string, number>): Record<string, numb
   return out;
 }
 
-const prefixes: Record<number, string> = { [-15]: 'f', [-12]: 'p', [-9]: 'n', [-6]: 'µ', [-3]: 'm', 0: '', 3: 'k', 6: 'M', 9: 'G', 12: 'T' };
-
-/** Engineering notation (exponent a multiple of 3) with an SI prefix and four significant figures. */
 /** Engineering notation for model messages and working lines: the one formatter of core/format.ts. */
 export function eng(value: number, unit = ''): string {
   return formatQuantity(value, unit);
