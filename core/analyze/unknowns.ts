@@ -81,7 +81,7 @@ export function solveUnknowns(
     severity: inBand ? 'info' : 'warning',
     code: inBand ? Code.solved : Code.solveInexact,
     message:
-      `\`${first.key}\` = ${formatQuantity(outcome.exact, dim)} exactly` +
+      `\`${first.key}\`: exact value ${formatQuantity(outcome.exact, dim)}` +
       (snapped.series ? `; nearest ${snapped.series} part ${text}` : '') +
       (achieved !== undefined ? ` gives ${formatQuantity(achieved, resultDim(plan, target.measure))} (${formatSignedPercent(error!)})` : '') +
       (inBand ? '' : ` — outside ${target.text}${target.toleranceGiven ? '' : ` (default ±${Math.round(target.tolerance.plus * 1e6) / 1e4} %)`}`),
