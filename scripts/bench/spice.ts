@@ -1,8 +1,10 @@
 // Switch-level netlists of our own values for the closed form vs ngspice (eecircuit-engine) comparison.
 import { circuitById } from '../../core/circuits/registry';
 import { withDefaults } from '../../core/circuits/defaults';
+// The engine loader the reference tests use, so bench and tests run ngspice the same way.
+import { startEngine, type Engine } from '../../test/reference/spice-netlists';
+export { startEngine };
 
-type Engine = { setNetList(text: string): void; runSim(): Promise<{ data: Array<{ name: string; values: unknown[] }> }> };
 
 export interface SpiceCase {
   circuit: string;
@@ -40,14 +42,6 @@ export function closedForm(c: SpiceCase): { compute: () => Record<string, number
   if (!model) throw new Error(`no circuit ${c.circuit}`);
   const input = withDefaults(model, { values: c.values });
   return { compute: () => model.compute(input) };
-}
-
-export async function startEngine(): Promise<Engine> {
-  const specifier = 'eecircuit-engine';
-  const { Simulation } = (await import(specifier)) as { Simulation: new () => Engine & { start(): Promise<void> } };
-  const sim = new Simulation();
-  await sim.start();
-  return sim;
 }
 
 /** Frequency from the simulated output: mean period between falling edges after the first cycle. */
