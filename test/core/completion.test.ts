@@ -38,7 +38,7 @@ describe('block completion', () => {
     assert.match(keys.find((e) => e.label === 'c')!.detail, /\[F\].*required/);
     assert.equal(keys[0].insertText, 'vt+: ');
     // DESIGN.md meta keys; `circuit` is written already.
-    assert.deepEqual(entries.filter((e) => e.kind === 'meta').map((e) => e.label), ['expect', 'target', 'series', 'samples', 'seed', 'from', 'data-model']);
+    assert.deepEqual(entries.filter((e) => e.kind === 'meta').map((e) => e.label), ['expect', 'target', 'series', 'samples', 'seed', 'from', 'data-model', 'safety']);
   });
 
   it('gives the 555 control key its 2/3-supply default and diode its words', () => {
@@ -53,6 +53,7 @@ describe('block completion', () => {
     assert.deepEqual(labels('```timing\ncircuit: timer\nmode: u|\n```\n'), ['up', 'up-down']);
     assert.deepEqual(labels('```timing\ncircuit: timer\nseries: |\n```\n'), ['E3', 'E6', 'E12', 'E24', 'E48', 'E96', 'E192', 'none']);
     assert.deepEqual(labels('```timing\ncircuit: timer\ndata-model: |\n```\n'), ['ilp32', 'lp64', 'ip16']);
+    assert.deepEqual(labels('```timing\ncircuit: timer\nsafety: |\n```\n'), ['yes', 'no']);
     // A numeric key has no words to offer.
     assert.deepEqual(labels('```timing\ncircuit: timer\nclock: |\n```\n'), []);
   });
