@@ -143,7 +143,8 @@ function safeCautions(model: CircuitModel, input: ReturnType<typeof modelInput>)
 
 /**
  * The model's cautions, plus the safety-timing caution for any circuit whose name says it guards something
- * (`watchdog`, `por-delay`, `interlock` …) or whose block says `safety: yes`; `safety: no` silences that one.
+ * (`watchdog`, `por-delay`, `interlock` …) or whose block says `safety: yes`. Nothing silences it: `safety: no`
+ * on a block named like a guard keeps the caution (a caution one word can remove protects no one).
  */
 function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>, raw: RawBlock, entries: Map<string, BlockEntry>, findings: Finding[]): string[] {
   const cautions = safeCautions(model, input).filter((c) => c !== safetyCaution);
@@ -151,8 +152,9 @@ function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>
   let safety = isSafetyName(raw.name);
   if (entry) {
     const word = entry.valueText.trim().toLowerCase();
-    if (word === 'yes' || word === 'no') safety = word === 'yes';
-    else findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`safety\` takes \`yes\` or \`no\`, not \`${entry.valueText}\``, span: entry.valueSpan });
+    if (word === 'yes') safety = true;
+    else if (word === 'no' && safety) findings.push({ severity: 'info', code: Code.valueSyntax, message: '`safety: no` does not remove the caution from a block named for watchdog, reset or interlock timing', span: entry.valueSpan });
+    else if (word !== 'no') findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`safety\` takes \`yes\` or \`no\`, not \`${entry.valueText}\``, span: entry.valueSpan });
   }
   return safety ? [safetyCaution, ...cautions] : cautions;
 }

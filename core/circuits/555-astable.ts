@@ -3,7 +3,7 @@ import { rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
 import { capacitor, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, resistor, voltage, voltageCautions, hasErrors, overflowIssues, oscillatorKeys } from './common';
 import { relaxationResults, relaxationWaveform, type Relaxation } from './relaxation';
-import { controlIssues, controlParam, levelLabels, supplyCautions } from './555-common';
+import { controlIssues, controlParam, levelLabels, supplyCautions, supplyIssues } from './555-common';
 
 const datasheet = 'Texas Instruments NE555 datasheet (SLFS022), equations for astable operation; thresholds generalised to any control voltage by the RC charging law';
 
@@ -47,7 +47,7 @@ export const ne555Astable: CircuitModel = {
   validate(input) {
     const issues: ModelIssue[] = [];
     if (!checkPositive(input, ['supply', 'ra', 'rb', 'c', 'control'], issues)) return issues;
-    issues.push(...controlIssues(input));
+    issues.push(...controlIssues(input), ...supplyIssues(input));
     if (!hasErrors(issues)) issues.push(...overflowIssues(ne555Astable.compute(input), oscillatorKeys, 'c'));
     return issues;
   },

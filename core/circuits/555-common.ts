@@ -32,8 +32,15 @@ export function levelLabels(input: ModelInput): Waveform['levels'] {
  */
 export function supplyCautions(input: ModelInput): string[] {
   const { supply } = input.values;
-  if (supply > 18) return [`supply ${eng(supply, 'V')} is above the 18 V absolute maximum of the NE555 (SLFS022): no standard 555 survives it`];
+  if (supply > 18) return [];
   if (supply > 16) return [`supply ${eng(supply, 'V')} is above the NE555's recommended 16 V (SLFS022); check the part's own limits`];
   if (supply < 4.5) return [`supply ${eng(supply, 'V')} is below the bipolar NE555's 4.5 V minimum (SLFS022): this needs a CMOS 555, whose own datasheet sets the limits`];
   return [];
+}
+
+/** Above the NE555's 18 V absolute maximum (SLFS022, from memory) the part is destroyed: a warning, not a number to trust. */
+export function supplyIssues(input: ModelInput): ModelIssue[] {
+  const { supply } = input.values;
+  if (!(supply > 18)) return [];
+  return [{ key: 'supply', severity: 'warning', message: `supply ${eng(supply, 'V')} is above the 18 V absolute maximum of the NE555 (SLFS022): no standard 555 survives it` }];
 }

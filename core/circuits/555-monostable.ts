@@ -2,7 +2,7 @@
 import { rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
 import { capacitor, checkPositive, eng, finiteOnly, resistor, voltage, voltageCautions, hasErrors, overflowIssues } from './common';
-import { controlIssues, controlParam, levelLabels, supplyCautions } from './555-common';
+import { controlIssues, controlParam, levelLabels, supplyCautions, supplyIssues } from './555-common';
 import { sampleRcSegments } from './segments';
 
 function width(input: ModelInput): number {
@@ -30,7 +30,7 @@ export const ne555Monostable: CircuitModel = {
   validate(input) {
     const issues: ModelIssue[] = [];
     if (!checkPositive(input, ['supply', 'r', 'c', 'control'], issues)) return issues;
-    issues.push(...controlIssues(input));
+    issues.push(...controlIssues(input), ...supplyIssues(input));
     if (!hasErrors(issues)) issues.push(...overflowIssues(ne555Monostable.compute(input), ['width'], 'c'));
     return issues;
   },

@@ -37,7 +37,7 @@ const metaKeyDocs: readonly MetaKeyDoc[] = [
   { key: 'seed', detail: 'Monte Carlo seed', documentation: 'Seed of the random draws, so a run repeats exactly.' },
   { key: 'from', detail: 'firmware file for names', documentation: 'Path (relative to this note) of a C file or header whose constants the block may name.', markdownOnly: true },
   { key: 'data-model', detail: 'ilp32, lp64 or ip16', documentation: 'Integer widths for evaluating firmware constants; overrides the tickmark.c.dataModel setting.' },
-  { key: 'safety', detail: 'yes or no', documentation: 'Whether this timing guards people or property (watchdog, reset, interlock): `yes` adds the safety caution, `no` silences the one a name like `watchdog` brings.' },
+  { key: 'safety', detail: 'yes or no', documentation: 'Whether this timing guards people or property (watchdog, reset, interlock): `yes` adds the safety caution. A block named like `watchdog` always carries it.' },
 ];
 
 const seriesDocs: Record<string, string> = {
@@ -110,7 +110,7 @@ function wordsFor(place: Extract<CursorPlace, { kind: 'value' }>): Word[] {
     return [...SERIES_NAMES, 'none'].map((s) => ({ word: s, detail: seriesDocs[s] ?? 'keep the exact value', documentation: 'IEC 60063 preferred number series.', kind: 'word' }));
   }
   if (place.key === 'data-model') return Object.entries(dataModelDocs).map(([word, detail]) => ({ word, detail, documentation: 'C integer widths.', kind: 'word' }));
-  if (place.key === 'safety') return ['yes', 'no'].map((word) => ({ word, detail: word === 'yes' ? 'add the safety caution' : 'no safety caution', documentation: 'Whether this timing guards people or property.', kind: 'word' }));
+  if (place.key === 'safety') return ['yes', 'no'].map((word) => ({ word, detail: word === 'yes' ? 'add the safety caution' : 'not safety timing (a guard-named block keeps its caution)', documentation: 'Whether this timing guards people or property.', kind: 'word' }));
   const model = circuitById(place.block.entries.find((e) => e.key === 'circuit')?.valueText ?? '');
   const param = model?.params.find((p) => p.key === place.key);
   if (param?.kind !== 'choice') return [];

@@ -147,6 +147,9 @@ describe('analysis of one block', () => {
     assert.match(guarded[0].message, /verify it independently on the built hardware/);
     const marked = noteBlock(['circuit: rc-delay', 'r: 10k', 'c: 1u', 'toward: 5 V', 'to: 2 V', 'safety: yes']).findings;
     assert.equal(marked.filter((f) => f.code === 'caution').length, 1);
+    // A caution one word could remove would protect no one: `safety: no` on a guard-named block keeps it.
+    const silenced = analyzeText('n.md', text.replace('c: 10u', 'c: 10u\nsafety: no')).blocks[0].findings;
+    assert.equal(silenced.filter((f) => f.code === 'caution').length, 1);
   });
 
   it('reports a value above the parameter table\'s limit once, not again from the model', () => {

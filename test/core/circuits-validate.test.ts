@@ -102,8 +102,10 @@ describe('cautions', () => {
     const text = all.filter((t) => /60 V/.test(t));
     assert.equal(text.length, 1);
     assert.match(text[0], /hazardous/);
-    // NE555 datasheet (SLFS022), from memory: 18 V absolute maximum supply.
-    assert.ok(all.some((t) => /18 V absolute maximum/.test(t)));
+    // NE555 datasheet (SLFS022), from memory: 18 V absolute maximum supply — a warning on `supply`.
+    const issues = model.validate(high);
+    assert.deepEqual(issues.map((i) => [i.key, i.severity]), [['supply', 'warning']]);
+    assert.match(issues[0].message, /18 V absolute maximum/);
   });
 
   it('notes a 555 supply outside the NE555 range of 4.5 V to 16 V', () => {
