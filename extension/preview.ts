@@ -2,6 +2,7 @@
 // and a small waveform, with the block's own text folded underneath. Everything from the note is escaped.
 import type MarkdownItConstructor = require('markdown-it');
 import * as vscode from 'vscode';
+import { Code } from '../core/codes';
 import type { BlockAnalysis } from '../core/types';
 import type { AnalysisStore } from './analysisStore';
 import { analyzeDocument, bandText, circuitModel, formatResult, renderWaveformSvg, waveformFor } from './engine';
@@ -88,7 +89,9 @@ export function renderTimingBlock(md: MarkdownIt, block: PreviewBlock, fence: Ti
   if (findings.length > 0) {
     const mark = { error: '⛔', warning: '⚠️', info: 'ℹ️' } as const;
     out.push('<ul class="tickmark-findings">');
-    for (const f of findings) out.push(`<li>${mark[f.severity]} ${esc(f.severity)}: ${esc(f.message)}</li>`);
+    // Cautions lead, as in the hover: a hazardous voltage or a watchdog matters more than the third decimal.
+    for (const f of findings) if (f.code === Code.caution) out.push(`<li>⚠️ Caution: ${esc(f.message)}</li>`);
+    for (const f of findings) if (f.code !== Code.caution) out.push(`<li>${mark[f.severity]} ${esc(f.severity)}: ${esc(f.message)}</li>`);
     out.push('</ul>');
   }
   if (!analysis) out.push('<p><em>No timing block could be read from this fence.</em></p>');

@@ -58,6 +58,20 @@ export function previewTests(): void {
       assert.match(html, /<code [^>]*class="[^"]*language-c[^"]*"[^>]*>.*int.* x = .*1.* &lt; .*2/);
     });
 
+    it('puts a caution first, worded as in the hover, and keeps it escaped', async () => {
+      // The name says reset (por): DESIGN.md safety cautions. 400 V DC is above the extra-low-voltage band
+      // (IEC 61140, from memory: 120 V ripple-free DC at most). Both are cautions; the missed claim is not.
+      const html = await render(fence('timing por-<b>x</b>', 'circuit: rc-delay\nr: 100k\nc: 1u\ntoward: 400 V\nto: 0.5 * toward\nexpect: 1 s ±1%'));
+      const items = [...html.matchAll(/<li>([^<]*)<\/li>/g)].map((m) => m[1]);
+      assert.ok(items.length >= 3, items.join(' | '));
+      assert.match(items[0], /^⚠️ Caution: /);
+      assert.match(items[1], /^⚠️ Caution: /);
+      assert.ok(items.slice(2).every((item) => !item.startsWith('⚠️ Caution')), items.join(' | '));
+      assert.ok(items.some((item) => /^⚠️ warning: /.test(item)), 'the missed claim still shows after the cautions');
+      assert.ok(!items.some((item) => /ℹ️ info: .*(Safety|extra-low)/.test(item)), 'a caution is not printed as plain info');
+      assert.doesNotMatch(html, /<b>x<\/b>/);
+    });
+
     it('resolves from: against the note when the preview names the document, and says when it cannot', async () => {
       const uri = await demoUri('notes/watchdog.md');
       const doc = await vscode.workspace.openTextDocument(uri);
