@@ -73,7 +73,8 @@ export function renderTimingBlock(md: MarkdownIt, block: PreviewBlock, fence: Ti
       const value = analysis.values[spec.key];
       if (value === undefined) continue;
       const band = analysis.spread?.[spec.key];
-      const spread = band && band.max > band.min ? bandText(model, spec.key, band.min, band.max) : '';
+      // A band whose ends print alike ("45.3–45.3 %") says nothing the value does not.
+      const spread = band && formatResult(model, spec.key, band.min) !== formatResult(model, spec.key, band.max) ? bandText(model, spec.key, band.min, band.max) : '';
       out.push(`<tr><td>${esc(spec.label)}</td><td>${esc(formatResult(model, spec.key, value))}</td><td>${esc(spread)}</td></tr>`);
     }
     for (const [key, part] of Object.entries(analysis.solved ?? {})) {

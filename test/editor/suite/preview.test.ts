@@ -72,6 +72,17 @@ export function previewTests(): void {
       assert.doesNotMatch(html, /<b>x<\/b>/);
     });
 
+    it('leaves the worst-case cell empty when both ends print the same', async () => {
+      // RC charging law (common practice): t = RC·ln 2 = 69.31 ms; ±0.001 % on R moves it by 0.7 µs, below
+      // the last printed digit, so the band would read "69.31–69.31 ms".
+      const html = await render(fence('timing tight', 'circuit: rc-delay\nr: 100k ±0.001%\nc: 1u\ntoward: 5 V\nto: 2.5 V'));
+      assert.equal(row(html, 'delay to the end level'), `${(0.1 * Math.log(2) * 1000).toFixed(2)} ms | `);
+      // The same block with ±5 % has a band whose ends differ: t ∝ R.
+      const wide = await render(fence('timing wide', 'circuit: rc-delay\nr: 100k ±5%\nc: 1u\ntoward: 5 V\nto: 2.5 V'));
+      const t = 0.1 * Math.log(2) * 1000;
+      assert.equal(row(wide, 'delay to the end level'), `${t.toFixed(2)} ms | ${(t * 0.95).toFixed(2)}–${(t * 1.05).toFixed(2)} ms`);
+    });
+
     it('resolves from: against the note when the preview names the document, and says when it cannot', async () => {
       const uri = await demoUri('notes/watchdog.md');
       const doc = await vscode.workspace.openTextDocument(uri);
