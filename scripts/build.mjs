@@ -61,11 +61,13 @@ const targets = [
   },
 ];
 
+// The webview script sits beside its stylesheet in media/ (git-ignored media/dist/): the panel's
+// localResourceRoots is media/ alone.
 if (existsSync(at('media/panel.ts'))) {
   targets.push({
     ...common,
     entryPoints: [at('media/panel.ts')],
-    outfile: at('out/media/panel.js'),
+    outfile: at('media/dist/panel.js'),
     format: 'esm',
     platform: 'browser',
     target: 'es2022',
@@ -89,7 +91,7 @@ if (!release && existsSync(at('test/editor/suite/index.ts'))) {
   });
 }
 
-if (release) rmSync(at('out'), { recursive: true, force: true });
+if (release) for (const dir of ['out', 'media/dist']) rmSync(at(dir), { recursive: true, force: true });
 
 try {
   if (watch) {

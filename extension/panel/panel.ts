@@ -26,8 +26,8 @@ export function panelOptions(extensionUri: vscode.Uri): vscode.WebviewOptions & 
   return {
     enableScripts: true,
     enableForms: false,
-    // The script bundle lands in out/media, the stylesheet stays in media: nothing else may load.
-    localResourceRoots: [vscode.Uri.joinPath(extensionUri, 'media'), vscode.Uri.joinPath(extensionUri, 'out', 'media')],
+    // The stylesheet and the script bundle (media/dist) both live under media/: nothing else may load.
+    localResourceRoots: [vscode.Uri.joinPath(extensionUri, 'media')],
   };
 }
 
@@ -46,7 +46,7 @@ export class WaveformPanel implements vscode.Disposable {
     webview.options = panelOptions(deps.extensionUri);
     webview.html = panelHtml({
       cspSource: webview.cspSource,
-      scriptUri: webview.asWebviewUri(vscode.Uri.joinPath(deps.extensionUri, 'out', 'media', 'panel.js')).toString(),
+      scriptUri: webview.asWebviewUri(vscode.Uri.joinPath(deps.extensionUri, 'media', 'dist', 'panel.js')).toString(),
       styleUri: webview.asWebviewUri(vscode.Uri.joinPath(deps.extensionUri, 'media', 'panel.css')).toString(),
       nonce: newNonce(),
     });

@@ -32,7 +32,7 @@ export function panelHtmlTests(): void {
       nonce = newNonce();
       html = panelHtml({
         cspSource: webview.cspSource,
-        scriptUri: webview.asWebviewUri(vscode.Uri.joinPath(extension.extensionUri, 'out', 'media', 'panel.js')).toString(),
+        scriptUri: webview.asWebviewUri(vscode.Uri.joinPath(extension.extensionUri, 'media', 'dist', 'panel.js')).toString(),
         styleUri: webview.asWebviewUri(vscode.Uri.joinPath(extension.extensionUri, 'media', 'panel.css')).toString(),
         nonce,
       });
@@ -64,7 +64,7 @@ export function panelHtmlTests(): void {
       assert.equal(urls.length, 2);
       const origin = new URL(probe.webview.asWebviewUri(vscode.Uri.file('/')).toString()).origin;
       for (const url of urls) assert.equal(new URL(url).origin, origin, url);
-      assert.ok(urls.some((u) => u.endsWith('/out/media/panel.js')));
+      assert.ok(urls.some((u) => u.endsWith('/media/dist/panel.js')));
       assert.ok(urls.some((u) => u.endsWith('/media/panel.css')));
       // No URL other than those two and the CSP's own source appears anywhere in the page.
       const everyUrl = [...html.matchAll(/(?:https?|wss?):\/\/[^\s"';]+/g)].map((m) => m[0]);
@@ -78,10 +78,10 @@ export function panelHtmlTests(): void {
       for (const n of nonces) assert.equal(Buffer.from(n, 'base64').length, 16);
     });
 
-    it('limits local resources to media/ and out/media/', async () => {
+    it('limits local resources to media/ alone (STYLE.md, Webview)', async () => {
       const extension = await activeExtension();
       const roots = (panelOptions(extension.extensionUri).localResourceRoots ?? []).map((u) => u.path);
-      assert.deepEqual(roots, [vscode.Uri.joinPath(extension.extensionUri, 'media').path, vscode.Uri.joinPath(extension.extensionUri, 'out', 'media').path]);
+      assert.deepEqual(roots, [vscode.Uri.joinPath(extension.extensionUri, 'media').path]);
     });
   });
 }
