@@ -66,7 +66,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     else findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`data-model\` takes ${dataModels.join(', ')}, not \`${dataModelEntry.valueText}\``, span: dataModelEntry.valueSpan });
   }
 
-  if (raw.host === 'c') findings.push(...unsignedSuffixHints(raw));
+  if (raw.host === 'c') findings.push(...unsignedSuffixHints(raw, model));
   const plan = buildPlan(raw, model, context.source, dataModel, entries);
   findings.push(...plan.findings);
   findings.push(...seriesFindings(raw, model, context.uri));
@@ -163,13 +163,16 @@ function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>
  * In firmware, `2u` is C's unsigned 2; in a block it is 2 µ (DESIGN.md's SI prefixes). Said out loud where a
  * firmware engineer is most likely to write it, a bare number with a lone `u`.
  */
-function unsignedSuffixHints(raw: RawBlock): Finding[] {
+function unsignedSuffixHints(raw: RawBlock, model: CircuitModel): Finding[] {
   const hints: Finding[] = [];
-  // Only beside a firmware name (`SYS_CLOCK / 2u`): `c: 2u` alone is a 2 µF capacitor, as meant.
+  // Beside a firmware name (`SYS_CLOCK / 2u`) or in a plain-number key (`prescaler: 2u`, a register); `c: 2u`
+  // alone is a 2 µF capacitor, as meant.
   // Linear tests only: a value line can be hostile and long.
   const firmwareName = (text: string) => text.includes('_') || /\b[A-Z][A-Z0-9]{2,}\b/.test(text);
   for (const entry of raw.entries) {
-    if (!firmwareName(entry.valueText)) continue;
+    const spec = model.params.find((p) => p.key === entry.key);
+    const plainNumber = spec?.kind === 'quantity' && spec.dim === '';
+    if (!plainNumber && !firmwareName(entry.valueText)) continue;
     const pattern = /(?<![\w.])(\d+)[uU](?![\w(])/g;
     for (let m = pattern.exec(entry.valueText); m; m = pattern.exec(entry.valueText)) {
       const start = entry.valueSpan.start + m.index;

@@ -225,7 +225,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     const spelled = target.text.slice(1, -1);
     const found = resolveInclude(uri, spelled, options);
     if (found.kind === 'outside') { report(target, Code.cInclude, `"${spelled}" resolves outside the workspace (${found.uri}); not read`); return; }
-    if (found.kind === 'missing') { report(target, Code.cInclude, `cannot find "${spelled}" (looked in ${found.looked.join(', ') || 'no folder inside the workspace'})`, 'info'); return; }
+    if (found.kind === 'missing') { report(target, Code.cInclude, `cannot find or read "${spelled}" (looked in ${found.looked.join(', ') || 'no folder inside the workspace'}; files above the size limit are not read)`, 'info'); return; }
     // One re-entry is allowed so an include guard can end it quietly; a second means the cycle is unguarded.
     if (stack.filter((u) => u === found.uri).length >= 2) { report(target, Code.cInclude, `"${spelled}" includes itself (${[...stack, found.uri].join(' → ')}); not followed again`); return; }
     if (stack.length >= MAX_INCLUDE_DEPTH || ++includes > MAX_INCLUDES) { report(target, Code.cExpansionLimit, `too many nested or repeated includes; "${spelled}" not read`); return; }

@@ -6,6 +6,7 @@ import { searchTimerRegisters, ticksPerPeriod, type CountMode } from './timer-se
 import { clampCycles, finitePoints } from './segments';
 
 const source = 'counter arithmetic of a reload timer (period = prescaler · ticks / clock), common practice';
+const dutySource = 'edge-aligned PWM: output active while the count is below compare; centre-aligned counts compare twice per period (common practice)';
 
 function mode(input: ModelInput): CountMode {
   return input.choices.mode === 'up-down' ? 'up-down' : 'up';
@@ -105,7 +106,7 @@ export const timer: CircuitModel = {
       lines.push({
         formula: up ? 'duty = compare / (reload + 1)' : 'duty = compare / reload',
         substituted: `duty = ${compare} / ${up ? reload + 1 : reload} = ${percent(results.duty)}`,
-        source,
+        source: dutySource,
       });
     }
     return lines;

@@ -24,7 +24,7 @@ export function collectFiles(paths: string[], cwd: string): { files: string[]; p
     }
     if (stat.isDirectory()) walk(full, files);
     else if (stat.isFile() && isTimingHost(full)) files.add(full);
-    else if (stat.isFile()) problems.push(`cannot check ${given}: not a Markdown (.md) or C/C++ (.c .h .cc .cpp .hpp .hh) file`);
+    else if (stat.isFile()) problems.push(`cannot check ${given}: not a Markdown (.md .markdown) or C/C++ (.c .h .cc .cpp .cxx .hpp .hh) file`);
     else problems.push(`cannot read ${given}: not a file or folder`);
   }
   return { files: [...files].sort(), problems };

@@ -26,7 +26,7 @@ commands:
   check   compute every timing block in notes and firmware, report claims that do not hold
   wave    write one block's waveform as SVG
 
-run \`tickmark <command> --help\` for its options
+run \`tickmark <command> --help\` for its options; \`tickmark --version\` prints the version
 `;
 
 const checkHelp = `usage: tickmark check [--json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] [--series S] [--max-size-kb N] PATH...
@@ -45,16 +45,26 @@ and prints \`file:line: severity: message\` per finding with a one-line summary 
 exit status: 0 nothing wrong, 1 a block has a warning or error, 2 usage error or unreadable path
 `;
 
-const waveHelp = `usage: tickmark wave PATH --block NAME [--cycles N] [--out FILE.svg]
+const waveHelp = `usage: tickmark wave PATH --block NAME [--cycles N] [--out FILE.svg] [--include DIR]... [--data-model M]
 
 Writes the waveform of block NAME in file PATH as SVG: capacitor voltage and output
 from startup over N cycles (default ${defaultCycles}, at most ${maxCycles}), thresholds labelled.
-Without --out the SVG goes to standard output.
+Without --out the SVG goes to standard output. --include, --data-model, --series, --tolerance and
+--max-size-kb work as for \`tickmark check\`, so a block draws with the constants it checks with.
 
 exit status: 0 written, 1 the block has errors or no waveform, 2 usage error or unreadable path
 `;
 
 const dataModels: DataModelName[] = ['ilp32', 'lp64', 'ip16'];
+
+/** Flags that steer the analysis, shared by `check` and `wave` so a block draws as it checks. */
+const analysisFlags = {
+  tolerance: { value: true },
+  include: { value: true },
+  'data-model': { value: true },
+  series: { value: true },
+  'max-size-kb': { value: true },
+} as const;
 
 export function main(argv: string[], io: Io): number {
   const [command, ...rest] = argv;
@@ -104,7 +114,7 @@ function isFolder(dir: string): boolean {
 }
 
 function check(argv: string[], io: Io): number {
-  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, tolerance: { value: true }, include: { value: true }, 'data-model': { value: true }, series: { value: true }, 'max-size-kb': { value: true }, help: { value: false }, h: { value: false } });
+  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, ...analysisFlags, help: { value: false }, h: { value: false } });
   if (args.flags.has('help') || args.flags.has('h')) {
     io.out(checkHelp);
     return 0;
@@ -134,7 +144,7 @@ function check(argv: string[], io: Io): number {
 }
 
 function wave(argv: string[], io: Io): number {
-  const args = parseArgs(argv, { block: { value: true }, cycles: { value: true }, out: { value: true }, help: { value: false }, h: { value: false } });
+  const args = parseArgs(argv, { block: { value: true }, cycles: { value: true }, out: { value: true }, ...analysisFlags, help: { value: false }, h: { value: false } });
   if (args.flags.has('help') || args.flags.has('h')) {
     io.out(waveHelp);
     return 0;

@@ -6,7 +6,7 @@ import type { CircuitModel } from '../circuits/model';
 import { circuitById } from '../circuits/registry';
 import { Code } from '../codes';
 import { formatQuantity, formatSignedPercent } from '../format';
-import { bandText, formatConstant, formatResult } from './values';
+import { formatConstant, formatResult, spreadText } from './values';
 
 /** Escapes text for Markdown so a block name or value cannot become markup, a link or HTML. */
 export function escapeMarkdown(text: string): string {
@@ -43,16 +43,17 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
   for (const f of analysis.findings.filter((f) => f.code === Code.caution)) out.push(`⚠️ **Caution:** ${messageMarkdown(f.message)}`);
   if (!model) return out.join('\n\n');
 
-  const keys = Object.keys(analysis.values);
-  if (keys.length) {
-    const rows = ['| result | value | worst case |', '|---|---|---|'];
-    for (const spec of model.results) {
-      const value = analysis.values[spec.key];
-      if (value === undefined) continue;
-      const band = analysis.spread?.[spec.key];
-      const spread = band && band.max > band.min ? bandText(model, spec.key, band.min, band.max) : '';
-      rows.push(`| ${escapeMarkdown(spec.label)} | ${formatResult(model, spec.key, value)} | ${spread} |`);
-    }
+  const shown = model.results.filter((spec) => analysis.values[spec.key] !== undefined);
+  if (shown.length) {
+    const bands = shown.map((spec) => spreadText(model, spec.key, analysis.spread?.[spec.key]));
+    // The worst-case column only when some result has a spread; left-aligned like the rest of a hover.
+    const withSpread = bands.some(Boolean);
+    const rows = withSpread ? ['| result | value | worst case |', '|:--|:--|:--|'] : ['| result | value |', '|:--|:--|'];
+    shown.forEach((spec, i) => {
+      const cells = [escapeMarkdown(spec.label), formatResult(model, spec.key, analysis.values[spec.key])];
+      if (withSpread) cells.push(bands[i]);
+      rows.push(`| ${cells.join(' | ')} |`);
+    });
     out.push(rows.join('\n'));
   }
   const shares = sharesLine(analysis, model);

@@ -34,17 +34,16 @@ export function headline(analysis: BlockAnalysis): string {
   const model = analysis.circuit ? circuitById(analysis.circuit) : undefined;
   if (!model) return analysis.name;
   const parts: string[] = [];
-  for (const key of model.headline) {
+  for (const key of headlineKeys(model, analysis.values)) {
     const value = analysis.values[key];
     if (value === undefined) continue;
     const text = formatResult(model, key, value);
     parts.push(model.results.find((r) => r.key === key)?.percent ? `${text} ${key}` : text);
   }
-  const first = model.headline.find((k) => analysis.spread?.[k]);
+  const first = headlineKeys(model, analysis.values).find((k) => analysis.spread?.[k]);
   const band = first ? analysis.spread![first] : undefined;
-  if (first && band && band.max > band.min) {
-    parts.push(`${bandText(model, first, band.min, band.max)} worst case`);
-  }
+  const bandWords = first ? spreadText(model, first, band) : '';
+  if (bandWords) parts.push(`${bandWords} worst case`);
   for (const [key, part] of Object.entries(analysis.solved ?? {})) {
     const spec = model.params.find((p) => p.key === key);
     const dim = spec && spec.kind === 'quantity' ? spec.dim : '';
@@ -53,6 +52,26 @@ export function headline(analysis: BlockAnalysis): string {
   const warnings = analysis.findings.filter((f) => f.severity === 'warning').length;
   if (warnings) parts.push(`${warnings} warning${warnings > 1 ? 's' : ''}`);
   return parts.join(' · ') || analysis.name;
+}
+
+/**
+ * The model's headline order, except that below 1 Hz the period leads: a 2 s watchdog timeout is read as a
+ * time, not as 0.5 Hz.
+ */
+export function headlineKeys(model: CircuitModel, values: Readonly<Record<string, number>>): readonly string[] {
+  const keys = model.headline;
+  const f = keys.indexOf('frequency');
+  const t = keys.indexOf('period');
+  if (f < 0 || t < 0 || f > t || !(values.frequency < 1)) return keys;
+  const swapped = [...keys];
+  [swapped[f], swapped[t]] = [swapped[t], swapped[f]];
+  return swapped;
+}
+
+/** A result's worst-case band as it reads, or '' when both ends read the same (no spread worth showing). */
+export function spreadText(model: CircuitModel, key: string, band: { min: number; max: number } | undefined): string {
+  if (!band || formatResult(model, key, band.min) === formatResult(model, key, band.max)) return '';
+  return bandText(model, key, band.min, band.max);
 }
 
 /** `172–209 Hz`: one unit for both ends when they share it. */
