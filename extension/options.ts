@@ -34,7 +34,11 @@ export function analyzeOptionsFor(target: vscode.Uri | { readonly uri: vscode.Ur
 
 function readServingBuffers(file: string, maxFileBytes: number): string | undefined {
   const open = findOpenDocument(file);
-  if (open) return open.getText();
+  if (open) {
+    // tickmark.files.maxSizeKB holds for an unsaved buffer as for the file on disk: the limit is in bytes.
+    const text = open.getText();
+    return Buffer.byteLength(text, 'utf8') > maxFileBytes ? undefined : text;
+  }
   try {
     if (fs.statSync(file).size > maxFileBytes) return undefined;
     return fs.readFileSync(file, 'utf8');

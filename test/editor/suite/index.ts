@@ -9,6 +9,7 @@ import { diagnosticsTests } from './diagnostics.test';
 import { hoverTests } from './hover.test';
 import { hostileTests } from './hostile.test';
 import { lensTests } from './lens.test';
+import { optionsTests } from './options.test';
 import { panelTests } from './panel.test';
 import { panelHtmlTests } from './panelHtml.test';
 import { previewTests } from './preview.test';
@@ -28,6 +29,7 @@ export function run(): Promise<void> {
   previewTests();
   completionTests();
   commandTests();
+  optionsTests();
   hostileTests();
   return new Promise((resolve, reject) => {
     mocha.run((failures) => (failures > 0 ? reject(new Error(`${failures} editor test(s) failed`)) : resolve()));
