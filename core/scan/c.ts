@@ -23,9 +23,13 @@ class BlockBuilder {
     if (ignored) this.collector.findings.push(ignored);
   }
 
+  /** Whether the block ended at a blank comment line (so `key: value` lines just after it were left out). */
+  endedAtBlank = false;
+
   /** Takes the comment text text[from, to) as the next line; false when the line ends the block. */
   take(text: string, from: number, to: number): boolean {
     const reading = readEntryLine(text, from, to);
+    this.endedAtBlank = reading.kind === 'blank';
     if (reading.kind !== 'entry') return false;
     this.collector.add(reading.entry);
     this.lastEnd = reading.entry.valueSpan.end;
@@ -67,11 +71,44 @@ function onNextLineAlone(text: string, prevEnd: number, start: number, carriageR
   return following <= start && skipBlanks(text, following, start) === start;
 }
 
+/**
+ * After a block ended at a blank comment line, the next comment line may still read as `key: value`: the user
+ * most likely meant it to belong. Said once, on that line, so a claim never drops out of a block silently.
+ */
+class LeftOutWatch {
+  private ended: RawBlock | undefined;
+
+  blockEnded(block: RawBlock, builder: BlockBuilder): void {
+    this.ended = builder.endedAtBlank ? block : undefined;
+  }
+
+  /** Looks at a comment line outside any block; forgets the ended block at the first line that is not blank. */
+  line(text: string, from: number, to: number): void {
+    if (!this.ended) return;
+    const reading = readEntryLine(text, from, to);
+    if (reading.kind === 'blank') return;
+    if (reading.kind === 'entry') {
+      this.ended.findings.push({
+        severity: 'warning',
+        code: Code.blockLineMalformed,
+        message: `\`${reading.entry.key}:\` is not part of the block above: a blank comment line ended it. Remove the blank line to keep it in the block.`,
+        span: { start: reading.entry.keySpan.start, end: reading.entry.valueSpan.end },
+      });
+    }
+    this.ended = undefined;
+  }
+
+  reset(): void {
+    this.ended = undefined;
+  }
+}
+
 function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carriageReturns: boolean): void {
   const found: RawBlock[] = [];
   let open: BlockBuilder | undefined;
   let pos = comment.start + 2;
   let first = true;
+  const watch = new LeftOutWatch();
   while (pos <= comment.closeAt) {
     const lineEnd = lineEndAt(text, pos, carriageReturns);
     const to = Math.min(lineEnd, comment.closeAt);
@@ -82,10 +119,13 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
     if (opened) {
       if (open) found.push(open.build());
       open = opened;
+      watch.reset();
     } else if (open && !open.take(text, from, to)) {
-      found.push(open.build());
+      const block = open.build();
+      found.push(block);
+      watch.blockEnded(block, open);
       open = undefined;
-    }
+    } else if (!open) watch.line(text, from, to);
     const next = nextLineAt(text, lineEnd);
     if (next <= pos || lineEnd >= comment.closeAt) break;
     pos = next;
@@ -108,10 +148,13 @@ export function scanC(text: string): RawBlock[] {
   const blocks: RawBlock[] = [];
   const carriageReturns = text.indexOf('\r') >= 0;
   let run: BlockBuilder | undefined;
+  const watch = new LeftOutWatch();
+  let lastLineComment = -1;
   for (const comment of findComments(text)) {
     if (comment.kind === 'block') {
       if (run) blocks.push(run.build());
       run = undefined;
+      watch.reset();
       scanBlockComment(text, comment, blocks, carriageReturns);
       continue;
     }
@@ -121,15 +164,21 @@ export function scanC(text: string): RawBlock[] {
       blocks.push(run.build());
       run = undefined;
     }
+    // The watch only follows a run of `//` lines, each alone on the line after the previous one.
+    if (!run && lastLineComment >= 0 && !onNextLineAlone(text, lastLineComment, comment.start, carriageReturns)) watch.reset();
     const opened = header(text, from, to);
     if (opened) {
       if (run) blocks.push(run.build());
       run = opened;
+      watch.reset();
     } else if (run && !run.take(text, from, to)) {
-      blocks.push(run.build());
+      const block = run.build();
+      blocks.push(block);
+      watch.blockEnded(block, run);
       run = undefined;
-    }
+    } else if (!run) watch.line(text, from, to);
     if (run) run.lastCommentEnd = comment.end;
+    lastLineComment = comment.end;
   }
   if (run) blocks.push(run.build());
   return blocks;

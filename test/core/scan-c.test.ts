@@ -147,3 +147,22 @@ describe('scanDocument', () => {
     assert.deepEqual(scanDocument({ uri: 'file:///f/x.py', text: c, languageId: 'python' }), []);
   });
 });
+
+describe('C blocks ended by a blank comment line', () => {
+  // DESIGN.md: a C block ends at the first other line; a `key: value` right after a blank comment line is the
+  // likely slip, so it is named where it stands.
+  it('warns on the first key line left out, in `//` runs and in `/* */`', () => {
+    const text = ['// @timing a', '// circuit: ring', '//', '// tpd: 1n', 'int x;', '/* @timing b', ' * circuit: ring', ' *', ' * tpd: 1n', ' */', ''].join('\n');
+    const [a, b] = scanC(text);
+    for (const block of [a, b]) {
+      const left = block.findings.find((f) => /not part of the block above/.test(f.message));
+      assert.ok(left, 'a warning for the left-out line');
+      assert.equal(text.slice(left.span.start, left.span.end), 'tpd: 1n');
+    }
+  });
+
+  it('stays quiet when prose or code follows', () => {
+    const text = ['// @timing a', '// circuit: ring', '//', '// The ring runs free.', '', '// tpd: 1n', ''].join('\n');
+    assert.deepEqual(scanC(text)[0].findings, []);
+  });
+});
