@@ -12,7 +12,6 @@ interface VsCodeApi {
 declare function acquireVsCodeApi(): VsCodeApi;
 
 const vscode = acquireVsCodeApi();
-const idleReadout = 'Move the mouse over the plot to read time and values.';
 
 function byId<T extends HTMLElement>(id: string): T {
   const node = document.getElementById(id);
@@ -30,6 +29,8 @@ const view = {
   results: byId('results'),
   exportButton: byId<HTMLButtonElement>('export'),
 };
+// The hint is written once, in the HTML shell (extension/panel/html.ts).
+const idleReadout = view.readout.textContent ?? '';
 
 let shown: { block: PanelBlock; waveform?: Waveform } | undefined;
 let detachReadout: (() => void) | undefined;

@@ -1,4 +1,5 @@
 // The panel's HTML shell. It carries no data: the block arrives by postMessage once the script is ready.
+// Its readout text is the panel's one idle hint: media/panel.ts reads it back rather than keeping a copy.
 import { randomBytes } from 'node:crypto';
 
 export interface PanelHtmlParts {
@@ -45,7 +46,7 @@ export function panelHtml({ cspSource, scriptUri, styleUri, nonce }: PanelHtmlPa
 <p id="headline" class="headline"></p>
 <ul id="findings" class="findings"></ul>
 <div id="chart" class="chart" aria-live="polite"></div>
-<p id="readout" class="readout muted">Move the mouse over the plot to read time and voltage.</p>
+<p id="readout" class="readout muted">Move the mouse over the plot to read time and values.</p>
 <dl id="results" class="results"></dl>
 <script type="module" nonce="${attribute(nonce)}" src="${attribute(scriptUri)}"></script>
 </body>

@@ -71,6 +71,10 @@ export function panelHtmlTests(): void {
       assert.ok(everyUrl.every((u) => urls.includes(u) || probe.webview.cspSource.includes(u)), everyUrl.join(' '));
     });
 
+    it('carries the one idle hint the script shows again after each redraw', () => {
+      assert.match(html, /<p id="readout"[^>]*>Move the mouse over the plot to read time and values\.<\/p>/);
+    });
+
     it('draws a fresh 128-bit nonce each time', () => {
       // CSP Level 3, section 7.2: a nonce should be at least 128 bits from a secure random source.
       const nonces = new Set(Array.from({ length: 20 }, newNonce));
