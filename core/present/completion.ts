@@ -31,8 +31,8 @@ interface MetaKeyDoc {
 const metaKeyDocs: readonly MetaKeyDoc[] = [
   { key: 'circuit', detail: 'which circuit model', documentation: 'The circuit this block describes; every other key depends on it.' },
   { key: 'expect', detail: 'claimed rate, e.g. 1 kHz ±1%', documentation: 'What the block claims: comma-separated quantities whose unit names the measure (Hz, s, %, baud). A computed value outside the tolerance is a warning.' },
-  { key: 'target', detail: 'value to solve `?` for', documentation: 'With one `?` value: the measure to meet (`target: 10 kHz`). R and C are then rounded to the `series:` part.' },
-  { key: 'series', detail: 'E3 … E192 or none', documentation: 'IEC 60063 series for solved parts; when written, R and C values off the series are flagged with a fix.' },
+  { key: 'target', detail: 'what a ? value must meet', documentation: 'With one `?` value: the measure to meet (`target: 10 kHz`). R and C are then rounded to the `series:` part.' },
+  { key: 'series', detail: 'E3 … E192 or none (setting default E24)', documentation: 'IEC 60063 series for solved parts; when written, R and C values off the series are flagged with a fix.' },
   { key: 'samples', detail: 'Monte Carlo runs', documentation: 'Number of random draws within the tolerances, for p1/p99 percentiles beside the worst case.' },
   { key: 'seed', detail: 'Monte Carlo seed', documentation: 'Seed of the random draws, so a run repeats exactly.' },
   { key: 'from', detail: 'firmware file for names', documentation: 'Path (relative to this note) of a C file or header whose constants the block may name.', markdownOnly: true },
