@@ -73,9 +73,9 @@ export function previewTests(): void {
     });
 
     it('leaves the worst-case cell empty when both ends print the same', async () => {
-      // RC charging law (common practice): t = RC·ln 2 = 69.31 ms; ±0.001 % on R moves it by 0.7 µs, below
-      // the last printed digit, so the band would read "69.31–69.31 ms".
-      const html = await render(fence('timing tight', 'circuit: rc-delay\nr: 100k ±0.001%\nc: 1u\ntoward: 5 V\nto: 2.5 V'));
+      // RC charging law (common practice): t = RC·ln 2 = 69.3147 ms; ±0.0001 % on R moves it by 0.07 µs, well
+      // below the last printed digit (10 µs), so the band would read "69.31–69.31 ms".
+      const html = await render(fence('timing tight', 'circuit: rc-delay\nr: 100k ±0.0001%\nc: 1u\ntoward: 5 V\nto: 2.5 V'));
       assert.equal(row(html, 'delay to the end level'), `${(0.1 * Math.log(2) * 1000).toFixed(2)} ms | `);
       // The same block with ±5 % has a band whose ends differ: t ∝ R.
       const wide = await render(fence('timing wide', 'circuit: rc-delay\nr: 100k ±5%\nc: 1u\ntoward: 5 V\nto: 2.5 V'));
@@ -88,9 +88,9 @@ export function previewTests(): void {
       const doc = await vscode.workspace.openTextDocument(uri);
       const md = timingPreviewPlugin(new MarkdownIt(), new AnalysisStore(silentLogger));
       // board.h: LSI_CLOCK_HZ 32000, WDG_DIV 16, WDG_TOP 3999; a period of (3999 + 1) · 16 / 32000 Hz = 2 s
-      // (counts = reload + 1, DESIGN.md timer model).
+      // (counts = reload + 1, DESIGN.md timer model). The note gives the clock ±10 %: the period is 2 s / (1 ± 0.1).
       const withNote = md.render(doc.getText(), { currentDocument: uri });
-      assert.equal(row(withNote, 'period'), '2 s | ');
+      assert.equal(row(withNote, 'period'), `2 s | ${(2 / 1.1).toFixed(3)}–${(2 / 0.9).toFixed(3)} s`);
       assert.doesNotMatch(withNote, /not read here/);
       const alone = md.render(doc.getText(), {});
       assert.equal(row(alone, 'period'), undefined);
