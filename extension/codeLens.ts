@@ -4,14 +4,16 @@ import type { AnalysisStore } from './analysisStore';
 import { commandIds } from './commandIds';
 import { timingSelector } from './documents';
 import { formatHeadline } from './engine';
+import { guarded } from './guard';
+import type { Logger } from './logger';
 import { spanToRange } from './ranges';
 import { readSettings } from './settings';
 
-export function registerCodeLens({ store }: { store: AnalysisStore }): vscode.Disposable {
+export function registerCodeLens({ store, logger }: { store: AnalysisStore; logger: Logger }): vscode.Disposable {
   const changed = new vscode.EventEmitter<void>();
   const provider: vscode.CodeLensProvider = {
     onDidChangeCodeLenses: changed.event,
-    provideCodeLenses(doc) {
+    provideCodeLenses: guarded(logger, (doc) => `code lenses for ${doc.uri.toString()}`, (doc: vscode.TextDocument) => {
       if (!readSettings(doc.uri).lensEnabled) return [];
       return store.analysisOf(doc).blocks.map(
         (block) =>
@@ -22,7 +24,7 @@ export function registerCodeLens({ store }: { store: AnalysisStore }): vscode.Di
             arguments: [doc.uri, block.name],
           }),
       );
-    },
+    }, []),
   };
   return vscode.Disposable.from(
     changed,

@@ -2,6 +2,8 @@
 import * as vscode from 'vscode';
 import { timingSelector, toDocumentLike } from './documents';
 import { blockCompletions, type CompletionEntry } from './engine';
+import { guarded } from './guard';
+import type { Logger } from './logger';
 import { spanToRange } from './ranges';
 
 const kinds: Record<CompletionEntry['kind'], vscode.CompletionItemKind> = {
@@ -11,12 +13,12 @@ const kinds: Record<CompletionEntry['kind'], vscode.CompletionItemKind> = {
   word: vscode.CompletionItemKind.EnumMember,
 };
 
-export function registerCompletion(): vscode.Disposable {
+export function registerCompletion({ logger }: { logger: Logger }): vscode.Disposable {
   const provider: vscode.CompletionItemProvider = {
-    provideCompletionItems(doc, position) {
+    provideCompletionItems: guarded(logger, (doc) => `completion in ${doc.uri.toString()}`, (doc: vscode.TextDocument, position: vscode.Position) => {
       const entries = blockCompletions(toDocumentLike(doc), doc.offsetAt(position));
       return entries.map((entry, index) => toItem(doc, entry, index));
-    },
+    }, []),
   };
   return vscode.languages.registerCompletionItemProvider(timingSelector, provider, ':');
 }

@@ -4,6 +4,7 @@ import * as vscode from 'vscode';
 import type { AnalysisStore } from './analysisStore';
 import { isTimingDocument } from './documents';
 import { placedFindings, toDiagnostic } from './findings';
+import { guarded } from './guard';
 import type { Logger } from './logger';
 import { textMapper, type OffsetMapper } from './ranges';
 import type { DocumentAnalysis } from '../core/types';
@@ -76,13 +77,15 @@ export function registerDiagnostics({ store, logger, debounceMs = 250 }: Diagnos
     }
   };
 
-  const publishAll = (): void => vscode.workspace.textDocuments.forEach(publish);
+  // Opening a document (and the first check) runs outside any try of the editor's: a fault is logged instead.
+  const publishOpened = guarded(logger, (doc) => `diagnostics for ${doc.uri.toString()}`, publish, undefined);
+  const publishAll = (): void => vscode.workspace.textDocuments.forEach((doc) => publishOpened(doc));
 
   // Just after activation, not inside it: activating only registers, the engine loads on this first check.
   const initial = setTimeout(publishAll, 0);
   const subscriptions = vscode.Disposable.from(
     collection,
-    vscode.workspace.onDidOpenTextDocument(publish),
+    vscode.workspace.onDidOpenTextDocument(publishOpened),
     vscode.workspace.onDidChangeTextDocument((event) => {
       if (event.contentChanges.length === 0) return;
       if (isTimingDocument(event.document)) schedule(event.document);

@@ -2,14 +2,16 @@
 import * as vscode from 'vscode';
 import type { AnalysisStore } from './analysisStore';
 import { timingSelector } from './documents';
+import { guarded } from './guard';
 import { hoverMarkdown } from './hoverContent';
+import type { Logger } from './logger';
 import { spanToRange } from './ranges';
 
-export function registerHover({ store }: { store: AnalysisStore }): vscode.Disposable {
+export function registerHover({ store, logger }: { store: AnalysisStore; logger: Logger }): vscode.Disposable {
   return vscode.languages.registerHoverProvider(timingSelector, {
-    provideHover(doc, position) {
+    provideHover: guarded(logger, (doc) => `hover in ${doc.uri.toString()}`, (doc: vscode.TextDocument, position: vscode.Position) => {
       const block = store.blockAt(doc, position);
       return block ? new vscode.Hover(hoverMarkdown(block, doc), spanToRange(doc, block.block.span)) : undefined;
-    },
+    }, undefined),
   });
 }

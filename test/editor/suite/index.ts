@@ -6,6 +6,7 @@ import { activationCacheTests } from './activationCache.test';
 import { commandTests } from './commands.test';
 import { completionTests } from './completion.test';
 import { diagnosticsTests } from './diagnostics.test';
+import { guardTests } from './guard.test';
 import { hoverTests } from './hover.test';
 import { hostileTests } from './hostile.test';
 import { lensTests } from './lens.test';
@@ -21,6 +22,7 @@ export function run(): Promise<void> {
   activationTests();
   activationCacheTests();
   rangeTests();
+  guardTests();
   lensTests();
   hoverTests();
   diagnosticsTests();
