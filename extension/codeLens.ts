@@ -15,15 +15,16 @@ export function registerCodeLens({ store, logger }: { store: AnalysisStore; logg
     onDidChangeCodeLenses: changed.event,
     provideCodeLenses: guarded(logger, (doc) => `code lenses for ${doc.uri.toString()}`, (doc: vscode.TextDocument) => {
       if (!readSettings(doc.uri).lensEnabled) return [];
-      return store.analysisOf(doc).blocks.map(
-        (block) =>
-          new vscode.CodeLens(spanToRange(doc, block.block.headerSpan), {
-            title: formatHeadline(block),
-            tooltip: `Open the waveform of ${block.name}`,
-            command: commandIds.showWaveform,
-            arguments: [doc.uri, block.name],
-          }),
-      );
+      return store.analysisOf(doc).blocks.map((block) => {
+        const headline = formatHeadline(block);
+        return new vscode.CodeLens(spanToRange(doc, block.block.headerSpan), {
+          title: headline,
+          // A narrow editor cuts the title off; the tooltip keeps the whole headline.
+          tooltip: `${headline}\nClick to open the waveform of ${block.name}.`,
+          command: commandIds.showWaveform,
+          arguments: [doc.uri, block.name],
+        });
+      });
     }, []),
   };
   return vscode.Disposable.from(

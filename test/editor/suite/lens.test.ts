@@ -20,6 +20,22 @@ export function lensTests(): void {
       assert.match(titles[0], /120\.4 ms/);
     });
 
+    it('repeats the whole headline in the tooltip, which a narrow editor cannot cut off', async () => {
+      const uri = await demoUri('notes/power-and-clock.md');
+      await vscode.workspace.openTextDocument(uri);
+      const lenses = await eventually(async () => {
+        const found = (await vscode.commands.executeCommand<vscode.CodeLens[]>('vscode.executeCodeLensProvider', uri)) ?? [];
+        return found.length >= 2 ? found : undefined;
+      }, 'lenses of power-and-clock.md');
+      for (const lens of lenses) {
+        const title = lens.command?.title ?? '';
+        assert.ok(title.length > 0);
+        assert.equal(lens.command?.tooltip?.split('\n')[0], title);
+      }
+      // RC charging to 0.7 of the supply, t = RC·ln(1/0.3) = 120.4 ms (as in the test above).
+      assert.match(lenses[0].command?.tooltip ?? '', /120\.4 ms/);
+    });
+
     it('shows the scheduler tick of 16 MHz / 64 / 250 as 1 kHz', async () => {
       // Up-counting timer: one period is reload + 1 ticks of clock/prescaler (common practice, MCU reference manuals).
       const titles = await eventually(async () => {
