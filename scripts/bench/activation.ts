@@ -8,7 +8,7 @@ import { median, ms, type Row } from './measure';
 const root = path.resolve(__dirname, '..', '..');
 /** What the installed extension loads: the activation path first, the lazily loaded core, the panel script. */
 const activationPath = 'out/extension.js';
-const editorBundles = [activationPath, 'out/engine.js', 'out/media/panel.js'];
+const editorBundles = [activationPath, 'out/engine.js', 'media/dist/panel.js'];
 const kB = (bytes: number) => `${(bytes / 1024).toFixed(0)} kB`;
 
 interface ActivationRecord {
