@@ -114,6 +114,7 @@ export interface CircuitModel {
   title: string;
   /** One sentence for the README and completion. */
   summary: string;
+  /** In words, for the hover; one starting `<choice key> <option>: ` is shown only when that option is chosen. */
   assumptions: readonly string[];
   params: readonly ParamSpec[];
   results: readonly ResultSpec[];

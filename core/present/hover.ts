@@ -77,9 +77,18 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
     out.push('**working**\n' + working.map((w) => `- ${code(w.formula)}  \n  ${code(w.substituted)}  \n  *${escapeMarkdown(w.source)}*`).join('\n'));
   }
   // Assumptions are the model's own text (ours, with inline code), not the document's: listed as written.
-  if (model.assumptions.length) out.push('**assumes**\n' + model.assumptions.map((a) => `- ${a}`).join('\n'));
+  const assumptions = model.assumptions.filter((a) => assumptionApplies(model, analysis.choices, a));
+  if (assumptions.length) out.push('**assumes**\n' + assumptions.map((a) => `- ${a}`).join('\n'));
   for (const f of analysis.findings.filter((f) => f.severity === 'info' && f.code !== Code.caution)) out.push(`ℹ️ ${messageMarkdown(f.message)}`);
   return out.join('\n\n');
+}
+
+/** An assumption written `mode up-down: …` speaks of that choice only, and is shown only when it is chosen. */
+function assumptionApplies(model: CircuitModel, choices: Readonly<Record<string, string>>, assumption: string): boolean {
+  const match = /^([a-z][\w-]*) ([\w-]+): /.exec(assumption);
+  const spec = match && model.params.find((p) => p.key === match[1]);
+  if (!match || !spec || spec.kind !== 'choice') return true;
+  return (choices[spec.key] ?? spec.default) === match[2];
 }
 
 function sharesLine(analysis: BlockAnalysis, model: CircuitModel): string | undefined {

@@ -32,4 +32,13 @@ describe('how results read', () => {
     assert.match(hover, /\*\*working\*\*/);
     assert.match(hover, /\| frequency \| 1 kHz \|/);
   });
+
+  it('shows the assumption of the chosen counting mode only', () => {
+    const up = hoverMarkdown(noteBlock(['circuit: timer', 'clock: 1 MHz', 'prescaler: 1', 'reload: 999']));
+    assert.match(up, /mode up: the counter runs 0/);
+    assert.doesNotMatch(up, /mode up-down:/);
+    const upDown = hoverMarkdown(noteBlock(['circuit: timer', 'clock: 1 MHz', 'prescaler: 1', 'reload: 999', 'mode: up-down']));
+    assert.match(upDown, /mode up-down: 0 → reload → 0/);
+    assert.doesNotMatch(upDown, /mode up: /);
+  });
 });
