@@ -77,14 +77,14 @@ export function percent(fraction: number): string {
   return formatPercent(fraction);
 }
 
-/** The ELV limit for DC (IEC 61140 band I/II boundary, common practice): 60 V. */
+/** 60 V DC: the SELV limit of IEC 60950-1 and the ES1 limit of IEC 62368-1 (from memory), common practice for "safe to touch". */
 export const elvLimitVolts = 60;
 
 export function voltageCautions(input: ModelInput, keys: readonly string[]): string[] {
   const highest = Math.max(0, ...keys.map((key) => Math.abs(input.values[key] ?? 0)).filter(Number.isFinite));
   if (highest <= elvLimitVolts) return [];
   return [
-    `${eng(highest, 'V')} is above the ${elvLimitVolts} V DC extra-low-voltage limit (IEC 61140, common practice): ` +
+    `${eng(highest, 'V')} is above ${elvLimitVolts} V DC, the safety-extra-low-voltage limit (SELV of IEC 60950-1, ES1 of IEC 62368-1): ` +
       'hazardous voltage — follow local codes and licensed practice.',
   ];
 }

@@ -93,7 +93,7 @@ describe('circuit validation', () => {
 
 describe('cautions', () => {
   it('names supplies above the 60 V DC extra-low-voltage limit', () => {
-    // IEC 61140 ELV boundary for DC, common practice: 60 V.
+    // 60 V DC: SELV of IEC 60950-1 / ES1 of IEC 62368-1 (from memory), common practice.
     const model = circuitById('555-astable') as CircuitModel;
     const low = withDefaults(model, { values: { ...astable, supply: 15 } });
     const high = withDefaults(model, { values: { ...astable, supply: 72 } });

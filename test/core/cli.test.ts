@@ -5,8 +5,12 @@ import * as path from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { main } from '../../core/cli/main';
 
+const made: string[] = [];
+after(() => made.forEach((dir) => fs.rmSync(dir, { recursive: true, force: true })));
+
 function workspace(files: Record<string, string>): string {
   const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-cli-'));
+  made.push(dir);
   for (const [name, text] of Object.entries(files)) {
     fs.mkdirSync(path.dirname(path.join(dir, name)), { recursive: true });
     fs.writeFileSync(path.join(dir, name), text);
@@ -126,7 +130,11 @@ describe('tickmark check', () => {
     assert.match(run(['check', 'stale.md'], dir, true).out, /\x1b\[33m/);
     assert.doesNotMatch(run(['check', 'stale.md'], dir, false).out, /\x1b\[/);
     const bin = path.resolve(__dirname, '../../bin/tickmark.js');
-    const piped = spawnSync(process.execPath, [bin, 'check', 'stale.md'], { cwd: dir, encoding: 'utf8', env: { ...process.env, NO_COLOR: '1' } });
+    // No NO_COLOR here: a pipe alone must keep the output plain (spawnSync's stdout is a pipe, not a TTY).
+    const env = { ...process.env };
+    delete env.NO_COLOR;
+    delete env.FORCE_COLOR;
+    const piped = spawnSync(process.execPath, [bin, 'check', 'stale.md'], { cwd: dir, encoding: 'utf8', env });
     assert.equal(piped.status, 1);
     assert.doesNotMatch(piped.stdout, /\x1b\[/);
   });

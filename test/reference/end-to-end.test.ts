@@ -1,6 +1,7 @@
 // End to end: blocks written as a user writes them (SI prefixes, IEC 60062 codes, units with and without a space,
 // expressions, the block's own keys, defaults), run through `tickmark check --json` in-process, and the JSON
 // compared with published formulas evaluated here, and with ngspice (eecircuit-engine) for three oscillators.
+import { skipUnlessCi } from '../helpers/reference';
 import { strict as assert } from 'assert';
 import { checkJson, cleanBlock, markdownBlock, near, workspace, type JsonBlock, type JsonReport } from './cli-json';
 import { gccAvailable, printWithGcc } from './gcc-print';
@@ -267,15 +268,14 @@ for (const [dataModel, flags] of [['lp64', []], ['ilp32', ['-m32']]] as Array<[s
     let json: JsonReport;
     let gcc: Map<string, number>;
     before(function () {
-      if (!gccAvailable) this.skip();
+      if (!gccAvailable) skipUnlessCi(this, 'gcc is not installed; reference check skipped');
       const dir = workspace({ 'fw/board.h': boardHeader, 'fw/main.c': firmwareSource() });
       const expressions = Object.values(firmwareBlocks).flatMap((b) => Object.values(b.keys));
       let printed: string[];
       try {
         printed = printWithGcc(`${dir}/fw`, 'board.h', expressions, flags);
       } catch (e) {
-        console.warn(`gcc ${flags.join(' ')} could not build the reference program, skipped: ${String((e as { stderr?: Buffer }).stderr ?? e)}`);
-        this.skip();
+        skipUnlessCi(this, `gcc ${flags.join(' ')} could not build the reference program, skipped: ${String((e as { stderr?: Buffer }).stderr ?? e)}`);
       }
       // Every value fits 2^53, so the printed integers convert to numbers exactly.
       gcc = new Map(expressions.map((expr, i) => [expr, Number(printed[i])]));

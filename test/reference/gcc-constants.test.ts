@@ -2,6 +2,7 @@
 // and size (via _Generic and sizeof) compared with the evaluator's. gcc (Debian 12.2) is the reference:
 // `gcc -m32 -msse2 -mfpmath=sse` for ilp32 (SSE so float math is not widened by the x87, as on an MCU) and
 // plain `gcc` on x86-64 for lp64. The clause beside each case names the rule of ISO C11 it exercises.
+import { skipUnlessCi } from '../helpers/reference';
 import { strict as assert } from 'assert';
 import { execFileSync } from 'node:child_process';
 import * as fs from 'node:fs';
@@ -157,13 +158,12 @@ for (const [model, flags] of [['ilp32', ['-m32', '-msse2', '-mfpmath=sse']], ['l
     let gcc: Map<number, GccLine> | undefined;
     let skipReason = '';
     before(function () {
-      if (!gccAvailable) { skipReason = 'gcc is not installed; reference check skipped'; this.skip(); }
+      if (!gccAvailable) { skipReason = 'gcc is not installed; reference check skipped'; skipUnlessCi(this, skipReason); }
       const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-gcc-'));
       fs.writeFileSync(path.join(dir, 'cases.c'), cProgram(CASES));
       try { gcc = runGcc(flags, dir, model); } catch (e) {
         skipReason = `gcc ${flags.join(' ')} could not build the reference program: ${String((e as { stderr?: Buffer }).stderr ?? e)}`;
-        console.warn(skipReason);
-        this.skip();
+        skipUnlessCi(this, skipReason);
       } finally { fs.rmSync(dir, { recursive: true, force: true }); }
     });
     const table = buildConstantTable('/firmware/cases.c', PRELUDE, { dataModel: model, includeDirs: [], workspaceRoots: ['/firmware'], read: () => undefined });

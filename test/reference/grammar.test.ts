@@ -1,6 +1,7 @@
 // The TextMate injection grammars in syntaxes/, run by the tokenizer VS Code itself uses (vscode-textmate
 // with the Oniguruma regex engine, vscode-oniguruma), over small host grammars and, when the prepared
 // editor host is on disk, over VS Code's own Markdown and C grammars.
+import { skipUnlessCi } from '../helpers/reference';
 import { strict as assert } from 'assert';
 import * as fs from 'node:fs';
 import * as path from 'node:path';
@@ -191,7 +192,7 @@ describe('injection grammars', () => {
     const c = path.join(vscodeExtensions, 'cpp', 'syntaxes', 'c.tmLanguage.json');
     before(function () {
       // Present once `npm run editor:prepare` has installed code-server; otherwise said as a skip.
-      if (!fs.existsSync(markdown) || !fs.existsSync(c)) this.skip();
+      if (!fs.existsSync(markdown) || !fs.existsSync(c)) skipUnlessCi(this, 'the editor host is not prepared (npm run editor:prepare); VS Code grammar check skipped');
     });
     markdownChecks(() => ({ 'text.html.markdown': markdown }));
     cChecks(() => ({ 'source.c': c }));
