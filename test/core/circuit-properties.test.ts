@@ -55,6 +55,8 @@ describe('circuit properties', () => {
     }
   });
 
+  // Equal exponential segments: with thresholds symmetric about the middle of the swing, charge and discharge
+  // cover mirror-image stretches of the same RC curve (RC charging law, common practice).
   it('thresholds symmetric about mid-swing give 50 % duty', () => {
     fc.assert(
       fc.property(

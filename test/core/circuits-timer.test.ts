@@ -26,6 +26,8 @@ function bruteForce(clock: number, target: number, bits: number, prescalers: num
 const avr: IntegerSet = { kind: 'list', values: [1, 8, 64, 256, 1024] };
 
 describe('timer model', () => {
+  // Up counting passes 0 … ARR, so ARR + 1 ticks (STM32 reference manuals' update-event formula); phase-correct
+  // up-down PWM runs 0 → TOP → 0 in 2·TOP ticks (AVR datasheets) — both from memory.
   it('counts reload + 1 ticks counting up and 2·reload up-down (DESIGN.md timer note)', () => {
     const up = timer.compute(withDefaults(timer, { values: { clock: 1e6, prescaler: 1, reload: 9, compare: 5 } }));
     assert.deepEqual([up.counts, up.period, up.duty], [10, 10e-6, 0.5]);

@@ -117,7 +117,8 @@ describe('handbook formulas', () => {
       assert.equal(r.error, 0);
     });
     it('a fractional divisor is used as given', () => {
-      // rate = clock / (oversampling · divisor) (DESIGN.md baud note), 48 MHz / (16 · 26.0417) ≈ 115200.
+      // rate = clock / (oversampling · divisor): the STM32 USART fractional baud generator, baud = f/(16·USARTDIV)
+      // (STM32 reference manual, from memory); 48 MHz / (16 · 26.0417) ≈ 115200.
       const r = run('baud', { values: { clock: 48e6, baud: 115200, divisor: 26.0416667 } });
       near(r.baud, 115200, 1e-6, 'baud');
     });
