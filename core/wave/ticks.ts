@@ -42,9 +42,12 @@ export function niceTicks(min: number, max: number, count = 5): number[] {
 /** [min, max] widened outward to whole steps, for an axis that starts and ends on a tick. */
 export function niceDomain(min: number, max: number, count = 4): [number, number] {
   if (!Number.isFinite(min) || !Number.isFinite(max) || !Number.isFinite(max - min)) return [0, 1];
-  if (min === max) {
-    const pad = min === 0 ? 1 : Math.abs(min) * 0.1;
-    return [min - pad, max + pad];
+  // A flat trace, or one whose swing is too small for doubles to divide (subnormal values): pad it to a domain
+  // that can be drawn, so no coordinate becomes NaN.
+  if (!(max - min > 1e-200)) {
+    const mid = (min + max) / 2;
+    const pad = Math.abs(mid) * 0.1 > 1e-200 ? Math.abs(mid) * 0.1 : 1;
+    return [mid - pad, mid + pad];
   }
   const step = niceStep(max - min, count);
   if (step * 1000 < max - min) return [min, max];

@@ -317,3 +317,12 @@ describe('timeLabel', () => {
     assert.equal(timeLabel(20e-9), '20 ns');
   });
 });
+
+describe('renderWaveformSvg with subnormal values', () => {
+  // IEEE 754 subnormals: 5e-324 is the smallest double; a tenth of it rounds to 0, which once left a zero-width
+  // axis and NaN coordinates (found by the fast-check property above, seed -1565648229).
+  it('draws a flat trace at 5e-324 V without NaN', () => {
+    const svg = renderWaveformSvg({ traces: [{ name: '', dim: 'V', points: [[0, 5e-324]] }], levels: [], duration: 1e-15 }, { title: '' });
+    assert.doesNotMatch(svg, /NaN|Infinity/);
+  });
+});
