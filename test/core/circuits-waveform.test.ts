@@ -58,9 +58,15 @@ describe('waveforms', () => {
     assert.deepEqual(w.levels.map((l) => l.label), ['VT+', 'VT−']);
     const edges = edgesOf(out);
     assert.equal(edges.length, 6);
-    assert.ok(Math.abs(edges[0] - results.startup) < 1e-15);
-    assert.ok(Math.abs(edges[2] - edges[0] - results.period) < 1e-12);
-    assert.ok(Math.abs(w.duration - (results.startup + 3 * results.period)) < 1e-12);
+    // RC charging law (common practice), written out rather than taken from the model: τ = 4.7 ms; startup
+    // charges 0 → 2.0 V toward 3.3 V, a period charges 1.1 → 2.0 V toward 3.3 V and discharges 2.0 → 1.1 V to 0.
+    const tau = 47e3 * 100e-9;
+    const startup = tau * Math.log(3.3 / (3.3 - 2.0));
+    const period = tau * (Math.log((3.3 - 1.1) / (3.3 - 2.0)) + Math.log(2.0 / 1.1));
+    assert.ok(Math.abs(edges[0] - startup) < 1e-12, `${edges[0]} vs ${startup}`);
+    assert.ok(Math.abs(edges[2] - edges[0] - period) < 1e-12);
+    assert.ok(Math.abs(w.duration - (startup + 3 * period)) < 1e-12);
+    assert.ok(Math.abs(results.period - period) < 1e-12);
     // The capacitor sits exactly on a threshold at every output edge.
     for (const t of edges) {
       const atEdge = cap.points.filter((p) => Math.abs(p[0] - t) < 1e-15).map((p) => p[1]);
@@ -73,7 +79,8 @@ describe('waveforms', () => {
   it('with tpd the capacitor overshoots the threshold before the output falls', () => {
     const { wave: w } = wave('schmitt-rc', { values: { supply: 5, 'vt+': 3, 'vt-': 2, r: 1e3, c: 1e-9, tpd: 100e-9 } });
     const peak = Math.max(...trace(w.traces, 'capacitor').points.map((p) => p[1]));
-    assert.ok(Math.abs(peak - rcVoltageAt(3, 5, 1e-6, 100e-9)) < 1e-9, String(peak));
+    // RC charging law: 100 ns past VT+ = 3 V toward 5 V with τ = 1 µs, v = 5 + (3 − 5)·e^(−0.1).
+    assert.ok(Math.abs(peak - (5 + (3 - 5) * Math.exp(-0.1))) < 1e-9, String(peak));
   });
 
   it('555-astable levels are labelled by their share of the supply at the default control', () => {
@@ -107,7 +114,10 @@ describe('waveforms', () => {
     const { wave: w, results } = wave('rc-delay', { values: { r: 10e3, c: 1e-6, to: 2, supply: 3.3 } });
     const cap = trace(w.traces, 'capacitor').points;
     assert.deepEqual(cap[0], [0, 0]);
-    const atTime = cap.find((p) => Math.abs(p[0] - results.time) < 1e-15);
+    // RC charging law: 0 → 2 V toward 3.3 V with τ = 10 ms takes τ·ln(3.3/1.3).
+    const time = 10e-3 * Math.log(3.3 / 1.3);
+    assert.ok(Math.abs(results.time - time) < 1e-12);
+    const atTime = cap.find((p) => Math.abs(p[0] - time) < 1e-12);
     assert.ok(atTime && Math.abs(atTime[1] - 2) < 1e-9);
     assert.deepEqual(w.levels, [{ label: 'to', value: 2 }]);
   });
@@ -115,7 +125,9 @@ describe('waveforms', () => {
   it('ring draws a square wave of the computed period', () => {
     const { wave: w, results } = wave('ring', { values: { stages: 3, tpd: 1e-9 } }, 4);
     const edges = edgesOf(trace(w.traces, 'output'));
-    assert.ok(Math.abs(edges[2] - edges[0] - results.period) < 1e-18);
+    // Ring oscillator: T = 2·N·tpd = 6 ns for three stages of 1 ns (common practice).
+    assert.ok(Math.abs(edges[2] - edges[0] - 6e-9) < 1e-18);
+    assert.ok(Math.abs(results.period - 6e-9) < 1e-18);
   });
 
   it('asks for absurd cycle counts without hanging', () => {
