@@ -1,7 +1,7 @@
 // A claim its block does not meet: the warning states the computed value, the claim and the difference, and
 // offers the fixes that are certain — the register constant that meets it, or the claim updated.
 import type { BlockAnalysis, Fix, Finding } from '../types';
-import type { RegisterSearchResult } from '../circuits/model';
+import { isSearchFailure } from '../circuits/model';
 import { Code } from '../codes';
 import { formatSignedPercent } from '../format';
 import type { BlockContext } from './block';
@@ -84,7 +84,7 @@ function registerValue(plan: Plan, slot: Slot, claim: Claim, overrides: Record<s
     const values = { ...evaluateParams(plan, undefined, overrides) };
     delete values[slot.key];
     const result = plan.model.search(modelInput(plan, values), { unknowns: [slot.key], measure: claim.measure, target: claim.value });
-    return typeof result.error === 'string' ? undefined : (result as RegisterSearchResult).values[slot.key];
+    return isSearchFailure(result) ? undefined : result.values[slot.key];
   }
   const outcome = solveContinuous(plan, slot.spec, claim.measure, claim.value, overrides);
   if (!outcome.ok) return undefined;

@@ -1,6 +1,6 @@
 // `?` values: one part solved onto a standard series, or timer registers searched, always against `target:`.
 import type { BlockEntry, Finding, SolvedPart } from '../types';
-import type { RegisterSearchResult } from '../circuits/model';
+import { isSearchFailure } from '../circuits/model';
 import { Code } from '../codes';
 import { formatQuantity, formatSignedPercent } from '../format';
 import type { BlockContext } from './block';
@@ -32,11 +32,11 @@ export function solveUnknowns(
   if (plan.model.search) {
     const input = modelInput(plan, evaluateParams(plan));
     const result = plan.model.search(input, { unknowns: unknownKeys, measure: target.measure, target: target.value });
-    if (typeof result.error === 'string') {
+    if (isSearchFailure(result)) {
       findings.push({ severity: 'error', code: Code.solveFailed, message: result.error, span: first.span });
       return undefined;
     }
-    const found = result as RegisterSearchResult;
+    const found = result;
     Object.assign(overrides, found.values);
     const achieved = computeAt(plan, undefined, overrides)?.[target.measure];
     for (const u of plan.unknowns) {

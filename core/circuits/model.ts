@@ -109,6 +109,15 @@ export interface RegisterSearchResult {
   error: number;
 }
 
+/** A search that found nothing says why; `error` is then a message, not a relative error. */
+export interface RegisterSearchFailure {
+  error: string;
+}
+
+export function isSearchFailure(result: RegisterSearchResult | RegisterSearchFailure): result is RegisterSearchFailure {
+  return typeof result.error === 'string';
+}
+
 export interface CircuitModel {
   id: string;
   title: string;
@@ -129,5 +138,5 @@ export interface CircuitModel {
   /** Cautions in words for the hover (hazardous voltage, safety-related timing). */
   cautions?(input: ModelInput): string[];
   /** For timers: search the `?` registers for a target. */
-  search?(input: ModelInput, search: RegisterSearch): RegisterSearchResult | { error: string };
+  search?(input: ModelInput, search: RegisterSearch): RegisterSearchResult | RegisterSearchFailure;
 }

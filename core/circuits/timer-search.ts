@@ -1,7 +1,7 @@
 // Register search for `prescaler: ?` and/or `reload: ?`: the pair closest to a target rate.
 // For one prescaler the best reload is a rounding of the ideal tick count, so the search walks only the
 // smaller of the two useful windows (prescalers or reloads that can land near the target), never all pairs.
-import type { IntegerSet, RegisterSearchResult } from './model';
+import type { IntegerSet, RegisterSearchFailure, RegisterSearchResult } from './model';
 import { nearestMembers, normaliseSet, setContains, setSize, setText } from './integer-set';
 
 export type CountMode = 'up' | 'up-down';
@@ -33,7 +33,7 @@ function reloadRange(mode: CountMode, bits: number): { min: number; max: number 
   return { min: mode === 'up' ? 0 : 1, max: 2 ** bits - 1 };
 }
 
-export function searchTimerRegisters(query: TimerSearchQuery): RegisterSearchResult | { error: string } {
+export function searchTimerRegisters(query: TimerSearchQuery): RegisterSearchResult | RegisterSearchFailure {
   const { clock, mode, bits, measure, target } = query;
   if (!(clock > 0) || !Number.isFinite(clock)) return { error: 'the search needs a positive `clock`' };
   if (!(target > 0) || !Number.isFinite(target)) return { error: `the target ${measure} must be a positive number` };

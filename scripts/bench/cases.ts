@@ -1,5 +1,5 @@
 // The six figures of `npm run bench`, each measured in this process (or a child process for the CLI).
-import type { RegisterSearchResult } from '../../core/circuits/model';
+import { isSearchFailure } from '../../core/circuits/model';
 import { execFileSync, spawnSync } from 'node:child_process';
 import * as fs from 'node:fs';
 import * as os from 'node:os';
@@ -77,10 +77,7 @@ export function timerSearch(): Row[] {
   const found = searchTimerRegisters(query);
   const m = medianMs(21, () => searchTimerRegisters(query));
   // A failed search carries its message in `error`; a found pair carries its relative error there.
-  const note = typeof found.error === 'string' ? found.error : (() => {
-    const pair = found as RegisterSearchResult;
-    return `prescaler ${pair.values.prescaler}, reload ${pair.values.reload}, error ${(pair.error * 100).toExponential(2)} %`;
-  })();
+  const note = isSearchFailure(found) ? found.error : `prescaler ${found.values.prescaler}, reload ${found.values.reload}, error ${(found.error * 100).toExponential(2)} %`;
   return [{ figure: '3  timer search 1..65536 × 32-bit, no exact pair', value: ms(m), target: '< 5 ms', met: m < 5, note: `median of 21; ${note}` }];
 }
 

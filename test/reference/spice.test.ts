@@ -14,6 +14,13 @@ function closeTo(actual: number, expected: number, relative: number, what: strin
   assert.ok(Math.abs(actual / expected - 1) <= relative, `${what}: simulated ${actual}, model ${expected} (${((actual / expected - 1) * 100).toFixed(3)} %)`);
 }
 
+/** Frequency, duty and startup of the simulation against the closed form, within 0.3 % (the project's bar). */
+function agrees(got: { frequency: number; duty: number; startup: number }, expected: Record<string, number>) {
+  closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
+  closeTo(got.duty, expected.duty, 0.003, 'duty');
+  closeTo(got.startup, expected.startup, 0.003, 'startup');
+}
+
 function model(id: string): CircuitModel {
   const found = circuitById(id);
   assert.ok(found, id);
@@ -35,9 +42,7 @@ describe('oscillators against ngspice (eecircuit-engine)', function () {
     const expected = m.compute(input);
     const sim = await simulate(schmittNetlist({ supply: 5, upper: 3.1, lower: 1.4, r: 22e3, c: 33e-9 }, tran(expected.period, expected.startup, 6)));
     const got = measure(sim.time, sim.out, 2.5);
-    closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
-    closeTo(got.duty, expected.duty, 0.003, 'duty');
-    closeTo(got.startup, expected.startup, 0.003, 'startup');
+    agrees(got, expected);
   });
 
   it('comparator-rc: regenerative comparator with r1/r2 feedback, split supply and an offset vref', async () => {
@@ -50,9 +55,7 @@ describe('oscillators against ngspice (eecircuit-engine)', function () {
     // v+ starts at its output-high value, the power-up state the model assumes (else ngspice sits metastable).
     const sim = await simulate(comparatorNetlist({ voh: 6, vol: -6, vref: 1, r1: 15e3, r2: 27e3, r: 39e3, c: 4.7e-9 }, tran(expected.period, expected.startup, 6)));
     const got = measure(sim.time, sim.out, 0);
-    closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
-    closeTo(got.duty, expected.duty, 0.003, 'duty');
-    closeTo(got.startup, expected.startup, 0.003, 'startup');
+    agrees(got, expected);
   });
 
   for (const control of [undefined, 3.0]) {
@@ -68,9 +71,7 @@ describe('oscillators against ngspice (eecircuit-engine)', function () {
       // The 555's latch is a hysteresis window on the capacitor voltage: on above `upper`, off below `upper/2`.
       const sim = await simulate(ne555AstableNetlist({ supply: 9, ra: 4.7e3, rb: 12e3, c: 22e-9, control: upper }, tran(expected.period, expected.startup, 6)));
       const got = measure(sim.time, sim.out, 4.5);
-      closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
-      closeTo(got.duty, expected.duty, 0.003, 'duty');
-      closeTo(got.startup, expected.startup, 0.003, 'startup');
+      agrees(got, expected);
     });
   }
 
@@ -92,8 +93,6 @@ c1 b x 2.2n ic=0
 ${tran(expected.period, expected.startup, 6)}
 .end`);
     const got = measure(sim.time, sim.out, 1.65);
-    closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
-    closeTo(got.duty, expected.duty, 0.003, 'duty');
-    closeTo(got.startup, expected.startup, 0.003, 'startup');
+    agrees(got, expected);
   });
 });

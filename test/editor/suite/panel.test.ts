@@ -47,6 +47,18 @@ export function panelTests(): void {
       for (const cleanup of cleanups.splice(0)) await cleanup();
     });
 
+    /** The heartbeat note open (its edits reverted afterwards) and its block on a recorded panel. */
+    async function heartbeatOnPanel() {
+      const record = await recordPanel();
+      cleanups.push(record.stop);
+      const uri = await demoUri('notes/heartbeat.md');
+      cleanups.push(() => revert(uri));
+      await showDemo('notes/heartbeat.md');
+      await vscode.commands.executeCommand('tickmark.showWaveform', uri, 'heartbeat');
+      const first = await eventually(() => record.shows.find((m) => m.block.name === 'heartbeat'), 'heartbeat on the panel');
+      return { record, uri, first };
+    }
+
     it('opens one panel titled after the block, and reuses it for the next block', async () => {
       const uri = await demoUri('notes/heartbeat.md');
       assert.equal(await vscode.commands.executeCommand('tickmark.showWaveform', uri, 'heartbeat'), true);
@@ -100,13 +112,7 @@ export function panelTests(): void {
     });
 
     it('redraws after an edit of r: with the frequency the RC law gives for the new part', async () => {
-      const record = await recordPanel();
-      cleanups.push(record.stop);
-      const uri = await demoUri('notes/heartbeat.md');
-      cleanups.push(() => revert(uri));
-      await showDemo('notes/heartbeat.md');
-      await vscode.commands.executeCommand('tickmark.showWaveform', uri, 'heartbeat');
-      const before = await eventually(() => record.shows.find((m) => m.block.name === 'heartbeat'), 'heartbeat on the panel');
+      const { record, uri, first: before } = await heartbeatOnPanel();
       await replaceText(uri, 'r: 470k ±1%', 'r: 235k ±1%');
       const after = await eventually(
         () => record.shows.find((m) => m.block.name === 'heartbeat' && m.block.values.frequency !== before.block.values.frequency),
@@ -119,13 +125,7 @@ export function panelTests(): void {
     });
 
     it('posts an explanation instead of a waveform when the block breaks the model', async () => {
-      const record = await recordPanel();
-      cleanups.push(record.stop);
-      const uri = await demoUri('notes/heartbeat.md');
-      cleanups.push(() => revert(uri));
-      await showDemo('notes/heartbeat.md');
-      await vscode.commands.executeCommand('tickmark.showWaveform', uri, 'heartbeat');
-      await eventually(() => record.shows.find((m) => m.block.name === 'heartbeat'), 'heartbeat on the panel');
+      const { record, uri } = await heartbeatOnPanel();
       // A lower threshold above the upper one has no oscillation (DESIGN.md: an error, not a number).
       await replaceText(uri, 'vt-: 0.33 * supply', 'vt-: 0.7 * supply');
       const broken = await eventually(() => record.shows.find((m) => m.block.name === 'heartbeat' && m.block.findings.some((f) => f.severity === 'error')), 'the error on the panel');
