@@ -15,3 +15,13 @@ export function relativeError(actual: number, target: number): number {
   if (!Number.isFinite(actual) || !Number.isFinite(target) || target === 0) return NaN;
   return (actual - target) / target;
 }
+
+/** The entries that are finite numbers; for…in rather than Object.entries, as this runs per Monte Carlo sample. */
+export function finiteOnly(results: Record<string, number>): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const key in results) {
+    const value = results[key];
+    if (typeof value === 'number' && Number.isFinite(value)) out[key] = value;
+  }
+  return out;
+}

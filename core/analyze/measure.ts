@@ -2,6 +2,8 @@
 import type { Dim } from '../types';
 import type { CircuitModel, ModelInput, ModelIssue, QuantityParam } from '../circuits/model';
 import type { Plan } from './plan';
+import { finiteOnly } from '../num';
+export { finiteOnly };
 import { evaluateParams, type Offsets } from './evaluate';
 
 export function modelInput(plan: Plan, values: Readonly<Record<string, number>>): ModelInput {
@@ -60,15 +62,6 @@ export function computeAt(plan: Plan, offsets?: Offsets, overrides?: Readonly<Re
   }
 }
 
-export function finiteOnly(results: Record<string, number>): Record<string, number> {
-  // for…in, not Object.entries: this runs for every Monte Carlo sample.
-  const out: Record<string, number> = {};
-  for (const key in results) {
-    const value = results[key];
-    if (typeof value === 'number' && Number.isFinite(value)) out[key] = value;
-  }
-  return out;
-}
 
 const preference = ['frequency', 'period', 'width', 'time', 'duty', 'baud', 'load', 'counts'];
 

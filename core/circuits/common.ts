@@ -1,5 +1,6 @@
 // Building blocks shared by the circuit model files: parameter specs, checks, number text, cautions.
 import { formatPercent, formatQuantity } from '../format';
+export { finiteOnly } from '../num';
 import type { ModelInput, ModelIssue, QuantityParam, ResultSpec } from './model';
 
 type Defaults = Pick<QuantityParam, 'default' | 'defaultText' | 'solvable' | 'min' | 'max' | 'integer' | 'optional'>;
@@ -60,13 +61,6 @@ export function hasErrors(issues: readonly ModelIssue[]): boolean {
   return issues.some((issue) => (issue.severity ?? 'error') === 'error');
 }
 
-/** Drops anything non-finite, so a result map never carries NaN or infinities. */
-export function finiteOnly(results: Record<string, number>): Record<string, number> {
-  // for…in, not Object.entries: this runs for every Monte Carlo sample.
-  const out: Record<string, number> = {};
-  for (const key in results) if (Number.isFinite(results[key])) out[key] = results[key];
-  return out;
-}
 
 /** Engineering notation for model messages and working lines: the one formatter of core/format.ts. */
 export function eng(value: number, unit = ''): string {
