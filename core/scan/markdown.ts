@@ -1,62 +1,13 @@
-// Timing blocks in Markdown: fenced code blocks whose info string's first word is `timing`.
-// Fence rules follow CommonMark 0.31.2 §4.5 (fenced code blocks); other fences are tracked so a
-// `timing` fence shown inside a longer ```` fence is an example, not a block.
-import type { RawBlock } from '../types';
+// Timing blocks in Markdown: fenced code blocks whose info string's first word is `timing`, wherever
+// CommonMark 0.31.2 sees a fence: at the top level, in block quotes and in list items at any depth; never in
+// indented code or an HTML block. The block structure is walked in ./commonmark; a key line inside a quote or
+// an item has its container markers stripped, and every span still indexes the original text.
+import type { RawBlock, Span } from '../types';
 import { Code } from '../codes';
-import { lineAt, trimEnd } from './lines';
+import { trimEnd } from './lines';
 import { EntryCollector, readEntryLine } from './entry';
 import { ignoredHeaderText, readHeaderName, startsWithWord } from './header';
-
-interface Fence {
-  char: number;
-  length: number;
-  /** Offset of the first fence character. */
-  at: number;
-}
-
-const BACKTICK = 96;
-const TILDE = 126;
-
-function countSpaces(text: string, from: number, to: number): number {
-  let i = from;
-  while (i < to && text.charCodeAt(i) === 32) i++;
-  return i - from;
-}
-
-function runLength(text: string, from: number, to: number, ch: number): number {
-  let i = from;
-  while (i < to && text.charCodeAt(i) === ch) i++;
-  return i - from;
-}
-
-/** §4.5: up to three spaces of indentation, 3+ backticks or tildes; a backtick fence's info has no backtick. */
-function openingFence(text: string, start: number, end: number): Fence | undefined {
-  const indent = countSpaces(text, start, end);
-  if (indent > 3) return undefined;
-  const at = start + indent;
-  const ch = text.charCodeAt(at);
-  if (ch !== BACKTICK && ch !== TILDE) return undefined;
-  const length = runLength(text, at, end, ch);
-  if (length < 3) return undefined;
-  if (ch === BACKTICK) {
-    for (let i = at + length; i < end; i++) if (text.charCodeAt(i) === BACKTICK) return undefined;
-  }
-  return { char: ch, length, at };
-}
-
-/** §4.5: same character, at least as long, up to three spaces before, only spaces or tabs after. */
-function closesFence(text: string, start: number, end: number, fence: Fence): boolean {
-  const indent = countSpaces(text, start, end);
-  if (indent > 3) return false;
-  const at = start + indent;
-  const length = runLength(text, at, end, fence.char);
-  if (length < fence.length) return false;
-  for (let i = at + length; i < end; i++) {
-    const ch = text.charCodeAt(i);
-    if (ch !== 32 && ch !== 9) return false;
-  }
-  return true;
-}
+import { walkFences, type FenceVisitor } from './commonmark';
 
 function isCommentLine(text: string, start: number, end: number): boolean {
   let i = start;
@@ -64,54 +15,72 @@ function isCommentLine(text: string, start: number, end: number): boolean {
   return text.charCodeAt(i) === 35 && i < end;
 }
 
-export function scanMarkdown(text: string): RawBlock[] {
-  const blocks: RawBlock[] = [];
-  let pos = text.charCodeAt(0) === 0xfeff ? 1 : 0;
-  while (pos < text.length) {
-    const line = lineAt(text, pos);
-    pos = line.next;
-    const fence = openingFence(text, line.start, line.end);
-    if (!fence) continue;
-    let infoAt = fence.at + fence.length;
-    while (infoAt < line.end && (text.charCodeAt(infoAt) === 32 || text.charCodeAt(infoAt) === 9)) infoAt++;
-    const isTiming = startsWithWord(text, infoAt, line.end, 'timing');
-    const headerSpan = { start: fence.at, end: trimEnd(text, fence.at, line.end) };
-    const collector = new EntryCollector();
-    let closed = false;
-    let lastEnd = headerSpan.end;
-    while (pos < text.length) {
-      const inner = lineAt(text, pos);
-      pos = inner.next;
-      if (closesFence(text, inner.start, inner.end, fence)) {
-        closed = true;
-        lastEnd = trimEnd(text, inner.start, inner.end);
-        break;
-      }
-      if (!isTiming) continue;
-      if (inner.end > inner.start) lastEnd = trimEnd(text, inner.start, inner.end);
-      if (isCommentLine(text, inner.start, inner.end)) continue;
-      const reading = readEntryLine(text, inner.start, inner.end);
-      if (reading.kind === 'entry') collector.add(reading.entry);
-      else if (reading.kind === 'malformed') collector.malformed(reading.span, reading.message);
-    }
-    if (!isTiming) continue;
-    const findings = collector.findings;
-    const header = readHeaderName(text, infoAt + 'timing'.length, line.end);
+class TimingBlocks implements FenceVisitor {
+  readonly blocks: RawBlock[] = [];
+  private collector = new EntryCollector();
+  private headerSpan: Span = { start: 0, end: 0 };
+  private infoAt = 0;
+  private lineEnd = 0;
+  private lastEnd = 0;
+  private fence = '';
+
+  constructor(private readonly text: string) {}
+
+  open(at: number, lineEnd: number, infoAt: number, char: number, length: number): boolean {
+    if (!startsWithWord(this.text, infoAt, lineEnd, 'timing')) return false;
+    this.collector = new EntryCollector();
+    this.headerSpan = { start: at, end: trimEnd(this.text, at, lineEnd) };
+    this.infoAt = infoAt;
+    this.lineEnd = lineEnd;
+    this.lastEnd = this.headerSpan.end;
+    this.fence = String.fromCharCode(char).repeat(length);
+    return true;
+  }
+
+  line(from: number, to: number): void {
+    const text = this.text;
+    const end = trimEnd(text, from, to);
+    if (end > from) this.lastEnd = end;
+    if (isCommentLine(text, from, to)) return;
+    const reading = readEntryLine(text, from, to);
+    if (reading.kind === 'entry') this.collector.add(reading.entry);
+    else if (reading.kind === 'malformed') this.collector.malformed(reading.span, reading.message);
+  }
+
+  close(closing: { start: number; end: number } | undefined, _next: number, atEnd: boolean): void {
+    const text = this.text;
+    // close() is called for every fence; only the timing fence opened last is collecting.
+    if (this.fence === '') return;
+    const headerSpan = this.headerSpan;
+    const findings = this.collector.findings;
+    const header = readHeaderName(text, this.infoAt + 'timing'.length, this.lineEnd);
     const { name, nameSpan } = header;
     const ignored = ignoredHeaderText(text, header);
     if (ignored) findings.unshift(ignored);
-    if (!closed) {
+    if (closing) {
+      this.lastEnd = trimEnd(text, closing.start, closing.end);
+    } else {
       findings.unshift({
         severity: 'warning',
         code: Code.blockUnterminated,
-        message: `This timing block has no closing ${String.fromCharCode(fence.char).repeat(fence.length)} fence; it runs to the end of the file.`,
+        message: atEnd
+          ? `This timing block has no closing ${this.fence} fence; it runs to the end of the file.`
+          : `This timing block has no closing ${this.fence} fence; it ends where its block quote or list item ends.`,
         span: headerSpan,
       });
     }
-    const span = { start: fence.at, end: Math.max(lastEnd, headerSpan.end) };
-    const entries = collector.entries;
-    if (name === undefined) blocks.push({ host: 'markdown', headerSpan, span, entries, findings });
-    else blocks.push({ host: 'markdown', name, nameSpan, headerSpan, span, entries, findings });
+    const span = { start: headerSpan.start, end: Math.max(this.lastEnd, headerSpan.end) };
+    const entries = this.collector.entries;
+    if (name === undefined) this.blocks.push({ host: 'markdown', headerSpan, span, entries, findings });
+    else this.blocks.push({ host: 'markdown', name, nameSpan, headerSpan, span, entries, findings });
+    this.fence = '';
   }
-  return blocks;
+}
+
+export function scanMarkdown(text: string): RawBlock[] {
+  // No block without the word: most notes are skipped in one native search.
+  if (text.indexOf('timing') < 0) return [];
+  const visitor = new TimingBlocks(text);
+  walkFences(text, visitor);
+  return visitor.blocks;
 }
