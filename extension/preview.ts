@@ -3,6 +3,7 @@
 import type MarkdownItConstructor = require('markdown-it');
 import * as vscode from 'vscode';
 import { Code } from '../core/codes';
+import { firmwareEntry } from '../core/analyze/keys';
 import type { BlockAnalysis } from '../core/types';
 import type { AnalysisStore } from './analysisStore';
 import { analyzeDocument, bandText, circuitModel, formatResult, renderWaveformSvg, waveformFor } from './engine';
@@ -23,7 +24,7 @@ export interface TimingFence {
 
 export interface PreviewBlock {
   analysis?: BlockAnalysis;
-  /** Said in the table when the answer is partial (no note to resolve `from:` against). */
+  /** Said in the table when the answer is partial (no note to resolve `firmware:` against). */
   note?: string;
 }
 
@@ -33,7 +34,7 @@ export function isTimingInfo(info: string): boolean {
 
 /**
  * The fence's block from the note's own analysis (the numbers lens and hover show). Without the note (text
- * rendered on its own) the fence is analysed alone, and a `from:` file cannot be read.
+ * rendered on its own) the fence is analysed alone, and a `firmware:` file cannot be read.
  */
 export function previewBlockOf(store: AnalysisStore, fence: TimingFence): PreviewBlock {
   const name = fence.info.trim().slice('timing'.length).trim().split(/\s+/)[0] || undefined;
@@ -56,8 +57,8 @@ export function previewBlockOf(store: AnalysisStore, fence: TimingFence): Previe
     read: () => undefined,
     maxFileBytes: settings.maxSizeKB * 1024,
   }).blocks[0];
-  const usesFirmware = /^\s*from\s*:/im.test(fence.content);
-  return { analysis, note: usesFirmware ? 'Rendered without its note: the firmware file named by from: is not read here.' : undefined };
+  const usesFirmware = firmwareEntry(analysis.block.entries) !== undefined;
+  return { analysis, note: usesFirmware ? 'Rendered without its note: the firmware file named by firmware: is not read here.' : undefined };
 }
 
 export function renderTimingBlock(md: MarkdownIt, block: PreviewBlock, fence: TimingFence): string {

@@ -9,7 +9,7 @@ import type { AnalyzeOptions, DataModelName, IdentifierSource } from './context'
 import { didYouMean } from './keys';
 import { buildPlan, type Plan } from './plan';
 import { evaluateParams, tolerancedKeys } from './evaluate';
-import { finiteOnly, limitIssues, modelInput } from './measure';
+import { finiteOnly, limitIssues, modelInput, runModel } from './measure';
 import { parseClaims } from './claims';
 import { monteCarlo, worstCase } from './spread';
 import { solveUnknowns } from './unknowns';
@@ -63,7 +63,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   if (dataModelEntry) {
     const word = dataModelEntry.valueText.trim().toLowerCase() as DataModelName;
     if (dataModels.includes(word)) dataModel = word;
-    else findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`data-model\` takes ${dataModels.join(', ')}, not \`${dataModelEntry.valueText}\``, span: dataModelEntry.valueSpan });
+    else findings.push({ severity: 'error', code: Code.valueOption, message: `\`data-model\` takes ${dataModels.join(', ')}, not \`${dataModelEntry.valueText}\``, span: dataModelEntry.valueSpan });
   }
 
   if (raw.host === 'c') findings.push(...unsignedSuffixHints(raw, model));
@@ -79,7 +79,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     const solved = solveUnknowns(plan, entries, context, overrides, findings);
     if (solved) analysis.solved = solved;
   } else if (plan.unknowns.length) {
-    for (const u of plan.unknowns) findings.push({ severity: 'info', code: Code.solveFailed, message: `\`${u.key}: ?\` is solved once the errors above are fixed`, span: u.span });
+    for (const u of plan.unknowns) findings.push({ severity: 'info', code: Code.solveBlocked, message: `\`${u.key}: ?\` is solved once the errors above are fixed`, span: u.span });
   }
 
   const params = evaluateParams(plan, undefined, overrides);
@@ -95,12 +95,17 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     const entry = entries.get(issue.key);
     // Every physics finding names its key, even where the model's sentence speaks in the trade's words.
     const message = issue.message.includes(`\`${issue.key}\``) ? issue.message : `\`${issue.key}\`: ${issue.message}`;
-    findings.push({ severity: issue.severity ?? 'error', code: Code.physics, message, span: entry ? entry.valueSpan : raw.headerSpan });
+    findings.push({ severity: issue.severity ?? 'error', code: issue.code ?? Code.physics, message, span: entry ? entry.valueSpan : raw.headerSpan });
   }
   if (blocked()) return analysis;
   try {
-    analysis.values = finiteOnly(model.compute(input));
-  } catch (err) {
+    const run = runModel(model, input);
+    analysis.values = run.values;
+    if (run.missing.length) {
+      findings.push(overflowFinding(plan, params, run.missing, raw));
+      return analysis;
+    }
+  } catch {
     findings.push({ severity: 'error', code: Code.physics, message: `${model.id} could not be computed from these values`, span: raw.headerSpan });
     return analysis;
   }
@@ -123,6 +128,24 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     findings.push({ severity: 'info', code: Code.caution, message: caution, span: raw.headerSpan });
   }
   return analysis;
+}
+
+/**
+ * A result that overflows a double comes from inputs of extreme magnitude (1e300 Ω · 1e300 F): the finding names
+ * those given values and points at the first, or at the header when none stands out.
+ */
+function overflowFinding(plan: Plan, params: Readonly<Record<string, number>>, missing: string[], raw: RawBlock): Finding {
+  const extreme = [...plan.slots.values()].filter((slot) => {
+    const size = Math.abs(params[slot.key]);
+    return size > 1e15 || (size > 0 && size < 1e-15);
+  });
+  const named = extreme.length ? `${extreme.map((s) => `\`${s.key}\``).join(', ')}: ` : '';
+  return {
+    severity: 'error',
+    code: Code.resultOverflow,
+    message: `${named}these values are beyond what can be computed: ${missing.join(', ')} would not be a finite number`,
+    span: extreme.length ? extreme[0].entry.valueSpan : raw.headerSpan,
+  };
 }
 
 function safeValidate(model: CircuitModel, input: ReturnType<typeof modelInput>) {
@@ -153,8 +176,8 @@ function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>
   if (entry) {
     const word = entry.valueText.trim().toLowerCase();
     if (word === 'yes') safety = true;
-    else if (word === 'no' && safety) findings.push({ severity: 'info', code: Code.valueSyntax, message: '`safety: no` does not remove the caution from a block named for watchdog, reset or interlock timing', span: entry.valueSpan });
-    else if (word !== 'no') findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`safety\` takes \`yes\` or \`no\`, not \`${entry.valueText}\``, span: entry.valueSpan });
+    else if (word === 'no' && safety) findings.push({ severity: 'info', code: Code.safetyKept, message: '`safety: no` does not remove the caution from a block named for watchdog, reset or interlock timing', span: entry.valueSpan });
+    else if (word !== 'no') findings.push({ severity: 'error', code: Code.valueOption, message: `\`safety\` takes \`yes\` or \`no\`, not \`${entry.valueText}\``, span: entry.valueSpan });
   }
   return safety ? [safetyCaution, ...cautions] : cautions;
 }
@@ -192,7 +215,7 @@ function integerMeta(entry: { valueText: string; valueSpan: { start: number; end
   const parsed = parseValue(entry.valueText, entry.valueSpan.start);
   const value = parsed.expr && !parsed.findings.length ? compileValue(parsed.expr)({}) : NaN;
   if (!Number.isInteger(value) || value < min || value > max) {
-    findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`${entry.key}\` takes a whole number from ${min} to ${max}`, span: entry.valueSpan });
+    findings.push({ severity: 'error', code: Code.valueRange, message: `\`${entry.key}\` takes a whole number from ${min} to ${max}`, span: entry.valueSpan });
     return undefined;
   }
   return value;

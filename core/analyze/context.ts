@@ -1,5 +1,6 @@
 // What a block needs from outside itself: settings, and where its identifiers come from.
 import type { Finding, ResolvedIdentifier } from '../types';
+import { Code } from '../codes';
 
 export type DataModelName = 'ilp32' | 'lp64' | 'ip16';
 
@@ -46,7 +47,7 @@ export interface IdentifierSource {
 }
 
 export const noIdentifiers: IdentifierSource = {
-  lookup: (name) => ({ ok: false, code: 'identifier-unknown', message: `\`${name}\` is not a key of this block, and no firmware file is named (add \`from: path/to/file.h\`)` }),
+  lookup: (name) => ({ ok: false, code: Code.identifierUnknown, message: `\`${name}\` is not a key of this block, and no firmware file is named (add \`firmware: path/to/file.h\`)` }),
   dependencies: () => [],
   findings: () => [],
 };

@@ -7,7 +7,7 @@ import { LineCounter } from '../scan/lines';
 import { analyzeBlock } from './block';
 import { noIdentifiers, type AnalyzeOptions, type IdentifierSource } from './context';
 import { cFileSource, fromFileSource } from './sources';
-import { isFirmwarePath } from './keys';
+import { firmwareEntry } from './keys';
 import { AnalysisCache, type CacheStats } from './cache';
 
 export { analyzeBlock } from './block';
@@ -65,15 +65,16 @@ function analyzeAll(doc: TextDocumentLike, options: AnalyzeOptions, cache: Analy
   for (const raw of blocks) {
     let source: IdentifierSource = own ?? noIdentifiers;
     const extra: Finding[] = [];
-    const from = raw.entries.find((e) => e.key === 'from' && isFirmwarePath(e.valueText));
-    if (from) {
-      if (isC) extra.push({ severity: 'warning', code: Code.keyUnknown, message: '`from:` is for notes; a block in C reads the constants of its own file', span: from.keySpan });
+    const firmware = firmwareEntry(raw.entries);
+    if (firmware) {
+      if (isC) extra.push({ severity: 'warning', code: Code.firmwareInC, message: `\`${firmware.key}:\` names a note's firmware file; a block in C reads the constants of its own file and its includes`, span: firmware.keySpan });
       else {
-        const spelled = from.valueText.trim();
+        if (firmware.key === 'from') extra.push({ severity: 'info', code: Code.keyRenamed, message: '`from:` for a firmware file is now `firmware:` (`from:` is rc-delay\'s start voltage); it is still read', span: firmware.keySpan, fixes: [{ title: 'Rename `from:` to `firmware:`', edits: [{ uri: doc.uri, span: firmware.keySpan, newText: 'firmware' }] }] });
+        const spelled = firmware.valueText.trim();
         let entry = fromSources.get(spelled);
         if (!entry) fromSources.set(spelled, (entry = fromFileSource(doc.uri, spelled, options)));
         if (entry.source) source = entry.source;
-        else extra.push({ severity: 'error', code: Code.cInclude, message: entry.problem ?? `cannot read \`${spelled}\``, span: from.valueSpan });
+        else extra.push({ severity: 'error', code: Code.cInclude, message: entry.problem ?? `cannot read \`${spelled}\``, span: firmware.valueSpan });
       }
     }
     used.add(source);

@@ -1,7 +1,7 @@
 // Keys a block may carry besides its circuit's parameters, and the helpers to suggest a near miss.
 
 /** Block keys that steer the analysis rather than describe the circuit. */
-export const metaKeys = ['circuit', 'expect', 'target', 'series', 'samples', 'seed', 'from', 'data-model', 'safety'] as const;
+export const metaKeys = ['circuit', 'expect', 'target', 'series', 'samples', 'seed', 'firmware', 'data-model', 'safety'] as const;
 
 export type MetaKey = (typeof metaKeys)[number];
 
@@ -12,8 +12,8 @@ export function isMetaKey(key: string): key is MetaKey {
 const firmwareExtensions = ['.h', '.c', '.hh', '.hpp', '.cc', '.cpp', '.cxx', '.inc'];
 
 /**
- * `from:` names a firmware file when its value ends in a C-family extension; otherwise it is the circuit's own
- * `from` parameter (rc-delay's start voltage). One rule for the scanner of notes and the planner alike.
+ * A note names its firmware file with `firmware:`. The older spelling `from:` is still read as one when its value
+ * ends in a C-family extension; otherwise `from` is the circuit's own parameter (rc-delay's start voltage).
  */
 export function isFirmwarePath(value: string): boolean {
   const lower = value.trim().toLowerCase();
@@ -24,6 +24,11 @@ export function isFirmwarePath(value: string): boolean {
 export function isMetaEntry(key: string, value: string): boolean {
   if (key === 'from') return isFirmwarePath(value);
   return isMetaKey(key);
+}
+
+/** The entry that names a block's firmware file: `firmware:`, or the older `from:` with a C-family path. */
+export function firmwareEntry<E extends { key: string; valueText: string }>(entries: readonly E[]): E | undefined {
+  return entries.find((e) => e.key === 'firmware') ?? entries.find((e) => e.key === 'from' && isFirmwarePath(e.valueText));
 }
 
 /** Levenshtein distance, bounded: returns limit + 1 once it is certain to exceed limit. */

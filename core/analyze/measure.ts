@@ -3,6 +3,7 @@ import type { Dim } from '../types';
 import type { CircuitModel, ModelInput, ModelIssue, QuantityParam } from '../circuits/model';
 import type { Plan } from './plan';
 import { finiteOnly } from '../num';
+import { Code } from '../codes';
 export { finiteOnly };
 import { evaluateParams, type Offsets } from './evaluate';
 
@@ -16,10 +17,12 @@ export function limitIssues(model: CircuitModel, values: Readonly<Record<string,
   for (const spec of model.params) {
     if (spec.kind !== 'quantity' || !(spec.key in values)) continue;
     const value = values[spec.key];
+    // An integer key is a register (or a count such as stages): its limits are the register's range.
+    const code = spec.integer ? Code.registerRange : undefined;
     if (!Number.isFinite(value)) issues.push({ key: spec.key, message: `\`${spec.key}\` does not evaluate to a finite number` });
-    else if (spec.min !== undefined && value < spec.min) issues.push({ key: spec.key, message: `\`${spec.key}\` must be at least ${spec.min}${spec.dim ? ' ' + spec.dim : ''} (${spec.label})` });
-    else if (spec.max !== undefined && value > spec.max) issues.push({ key: spec.key, message: `\`${spec.key}\` must be at most ${spec.max}${spec.dim ? ' ' + spec.dim : ''} (${spec.label})` });
-    else if (spec.integer && !Number.isInteger(value)) issues.push({ key: spec.key, message: `\`${spec.key}\` must be a whole number, not ${value}` });
+    else if (spec.min !== undefined && value < spec.min) issues.push({ key: spec.key, code, message: `\`${spec.key}\` must be at least ${spec.min}${spec.dim ? ' ' + spec.dim : ''} (${spec.label})` });
+    else if (spec.max !== undefined && value > spec.max) issues.push({ key: spec.key, code, message: `\`${spec.key}\` must be at most ${spec.max}${spec.dim ? ' ' + spec.dim : ''} (${spec.label})` });
+    else if (spec.integer && !Number.isInteger(value)) issues.push({ key: spec.key, code, message: `\`${spec.key}\` must be a whole number, not ${value}` });
   }
   return issues;
 }
@@ -50,13 +53,30 @@ function hasError(issues: readonly ModelIssue[]): boolean {
   return false;
 }
 
+const requiredByModel = new WeakMap<CircuitModel, string[]>();
+
+/**
+ * The one place a model's `compute` runs: once per evaluation, its results checked afterwards for every result
+ * the model always gives (`missing` names those that came out infinite or NaN: an overflow of a double).
+ * Throws what the model throws.
+ */
+export function runModel(model: CircuitModel, input: ModelInput): { values: Record<string, number>; missing: string[] } {
+  let required = requiredByModel.get(model);
+  if (!required) requiredByModel.set(model, (required = model.results.filter((r) => !r.optional).map((r) => r.key)));
+  const values = finiteOnly(model.compute(input));
+  const missing: string[] = [];
+  for (let i = 0; i < required.length; i++) if (!(required[i] in values)) missing.push(required[i]);
+  return { values, missing };
+}
+
 /** Results of one evaluation, or undefined when the inputs break the model (never throws). */
 export function computeAt(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> | undefined {
   const values = evaluateParams(plan, offsets, overrides);
   try {
     const input = modelInput(plan, values);
     if (!withinLimits(plan.model, values) || hasError(plan.model.validate(input))) return undefined;
-    return finiteOnly(plan.model.compute(input));
+    const run = runModel(plan.model, input);
+    return run.missing.length ? undefined : run.values;
   } catch {
     return undefined;
   }

@@ -18,7 +18,7 @@ export function checkClaims(analysis: BlockAnalysis, plan: Plan, claims: Claim[]
     if (computed === undefined) {
       const missing = plan.model.params.filter((p) => p.kind === 'quantity' && p.optional && !plan.entries.has(p.key)).map((p) => `\`${p.key}:\``);
       const hint = missing.length ? ` — add ${missing.join(' or ')} to compute it` : '';
-      findings.push({ severity: 'info', code: Code.expectUnknownMeasure, message: `${claim.measure} is not computed for this block, so \`${claim.text}\` is not checked${hint}`, span: claim.span });
+      findings.push({ severity: 'info', code: Code.expectNotComputed, message: `${claim.measure} is not computed for this block, so \`${claim.text}\` is not checked${hint}`, span: claim.span });
       continue;
     }
     if (meetsClaim(claim, computed)) continue;

@@ -114,7 +114,7 @@ export function buildPlan(raw: RawBlock, model: CircuitModel, source: Identifier
     if (isMetaEntry(entry.key, entry.valueText)) continue;
     const spec = keys.params.get(entry.key);
     if (!spec) {
-      const hint = entry.key === 'from' ? ' (a firmware file for `from:` ends in .h, .c, .hpp …)' : didYouMean(entry.key, [...model.params.map((p) => p.key), ...metaKeys]);
+      const hint = entry.key === 'from' ? ' (a note\'s firmware file is named with `firmware:`)' : didYouMean(entry.key, [...model.params.map((p) => p.key), ...metaKeys]);
       plan.findings.push({
         severity: 'warning',
         code: Code.keyUnknown,
@@ -128,7 +128,7 @@ export function buildPlan(raw: RawBlock, model: CircuitModel, source: Identifier
       if (spec.options.includes(word)) plan.choices[spec.key] = word;
       else
         plan.findings.push(
-          error(Code.valueSyntax, `\`${entry.key}\` takes ${spec.options.map((o) => `\`${o}\``).join(' or ')}, not \`${entry.valueText}\`${didYouMean(word, spec.options)}`, entry.valueSpan),
+          error(Code.valueOption, `\`${entry.key}\` takes ${spec.options.map((o) => `\`${o}\``).join(' or ')}, not \`${entry.valueText}\`${didYouMean(word, spec.options)}`, entry.valueSpan),
         );
       continue;
     }

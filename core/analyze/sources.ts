@@ -28,7 +28,7 @@ export function cFileSource(filePath: string, text: string, options: AnalyzeOpti
   return {
     lookup(name, dataModel): IdentifierLookup {
       const resolution = table(dataModel).lookup(name);
-      if (!resolution.ok) return { ok: false, message: resolution.message, code: resolution.code || Code.identifierUnknown };
+      if (!resolution.ok) return { ok: false, message: resolution.message, code: resolution.code || Code.cUnknown };
       const value = toNumber(resolution.value);
       if (!Number.isFinite(value)) return { ok: false, code: Code.cSyntax, message: `\`${name}\` is not a finite number` };
       const d = resolution.definition;

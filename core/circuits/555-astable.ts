@@ -1,7 +1,7 @@
 // 555 timer as an astable: C charges through RA + RB (or RA alone past a diode) and discharges through RB.
 import { rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
-import { capacitor, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, resistor, voltage, voltageCautions, hasErrors, overflowIssues, oscillatorKeys } from './common';
+import { capacitor, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, resistor, voltage, voltageCautions } from './common';
 import { relaxationResults, relaxationWaveform, type Relaxation } from './relaxation';
 import { controlIssues, controlParam, levelLabels, supplyCautions, supplyIssues } from './555-common';
 
@@ -48,7 +48,6 @@ export const ne555Astable: CircuitModel = {
     const issues: ModelIssue[] = [];
     if (!checkPositive(input, ['supply', 'ra', 'rb', 'c', 'control'], issues)) return issues;
     issues.push(...controlIssues(input), ...supplyIssues(input));
-    if (!hasErrors(issues)) issues.push(...overflowIssues(ne555Astable.compute(input), oscillatorKeys, 'c'));
     return issues;
   },
 

@@ -1,5 +1,6 @@
 // What the 555 astable and monostable share: the control pin and its levels.
 import type { ModelInput, ModelIssue, QuantityParam, Waveform } from './model';
+import { Code } from '../codes';
 import { eng, voltage } from './common';
 
 /** The internal divider puts the control pin at 2/3 VCC when it is left open (NE555 datasheet, SLFS022). */
@@ -42,5 +43,5 @@ export function supplyCautions(input: ModelInput): string[] {
 export function supplyIssues(input: ModelInput): ModelIssue[] {
   const { supply } = input.values;
   if (!(supply > 18)) return [];
-  return [{ key: 'supply', severity: 'warning', message: `supply ${eng(supply, 'V')} is above the 18 V absolute maximum of the NE555 (SLFS022): no standard 555 survives it` }];
+  return [{ key: 'supply', severity: 'warning', code: Code.supplyRange, message: `supply ${eng(supply, 'V')} is above the 18 V absolute maximum of the NE555 (SLFS022): no standard 555 survives it` }];
 }

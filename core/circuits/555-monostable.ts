@@ -1,7 +1,7 @@
 // 555 timer as a one-shot: after a trigger, C charges through R from 0 V to the control voltage.
 import { rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
-import { capacitor, checkPositive, eng, finiteOnly, resistor, voltage, voltageCautions, hasErrors, overflowIssues } from './common';
+import { capacitor, checkPositive, eng, finiteOnly, resistor, voltage, voltageCautions } from './common';
 import { controlIssues, controlParam, levelLabels, supplyCautions, supplyIssues } from './555-common';
 import { sampleRcSegments } from './segments';
 
@@ -31,7 +31,6 @@ export const ne555Monostable: CircuitModel = {
     const issues: ModelIssue[] = [];
     if (!checkPositive(input, ['supply', 'r', 'c', 'control'], issues)) return issues;
     issues.push(...controlIssues(input), ...supplyIssues(input));
-    if (!hasErrors(issues)) issues.push(...overflowIssues(ne555Monostable.compute(input), ['width'], 'c'));
     return issues;
   },
 

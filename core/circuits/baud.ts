@@ -2,7 +2,8 @@
 // Without `divisor` the nearest whole divisor (at least 1) is used, as integer divisor UARTs do
 // (AVR UBRR + 1, the 16550 divisor latch); give `divisor` for fractional baud-rate generators.
 import type { CircuitModel, ModelInput, ModelIssue, WorkingLine } from './model';
-import { checkPositive, eng, finiteOnly, percent, quantity, hasErrors, overflowIssues } from './common';
+import { Code } from '../codes';
+import { checkPositive, eng, finiteOnly, percent, quantity, hasErrors } from './common';
 
 const source = 'UART baud-rate generator arithmetic (rate = clock / (oversampling · divisor)), common practice';
 
@@ -51,7 +52,6 @@ export const baud: CircuitModel = {
     if (divisor !== undefined && !(Number.isFinite(divisor) && divisor > 0)) {
       issues.push({ key: 'divisor', message: `divisor must be greater than zero (got ${divisor})` });
     }
-    if (!hasErrors(issues)) issues.push(...overflowIssues(baud.compute(input), ['baud', 'error'], 'baud'));
     // `baud:` states the wanted rate, so a divisor that misses it is a stale claim like any other: a warning.
     if (!hasErrors(issues)) {
       const { error } = rates(input);
@@ -59,6 +59,7 @@ export const baud: CircuitModel = {
         issues.push({
           key: input.values.divisor !== undefined ? 'divisor' : 'baud',
           severity: 'warning',
+          code: Code.rateError,
           message: `rate error ${percent(error)} is beyond the ±2 % an 8-N-1 link usually tolerates between both ends (common practice)`,
         });
       }

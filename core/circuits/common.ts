@@ -99,17 +99,6 @@ export function safetyCautions(input: ModelInput): string[] {
   return isSafetyName(input.name) ? [safetyCaution] : [];
 }
 
-/**
- * Inputs that pass every physics check can still overflow or underflow a double (1e-300 F, 1e300 Ω).
- * Then the block gets an error rather than a missing number.
- */
-export function overflowIssues(results: Readonly<Record<string, number>>, required: readonly string[], key: string): ModelIssue[] {
-  const missing = required.filter((result) => !Number.isFinite(results[result]));
-  if (missing.length === 0) return [];
-  return [{ key, message: `these values are beyond what can be computed: ${missing.join(', ')} would not be a finite number` }];
-}
-
-export const oscillatorKeys = oscillatorResults.map((result) => result.key);
 
 /** A value inside a formula: negatives in parentheses so "5 V − (−2.5 V)" reads right. */
 export function term(value: number, unit = ''): string {

@@ -1,6 +1,6 @@
 // Comparator (or op-amp) relaxation oscillator: positive feedback r2/r1 sets the thresholds, R–C the timing.
 import type { CircuitModel, ModelInput, ModelIssue, WorkingLine } from './model';
-import { capacitor, checkFinite, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, resistor, voltage, voltageCautions, hasErrors, overflowIssues, oscillatorKeys } from './common';
+import { capacitor, checkFinite, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, resistor, voltage, voltageCautions } from './common';
 import { hysteresisIssues, hysteresisRelaxation, hysteresisWorking, type Hysteresis } from './hysteresis';
 import { relaxationResults, relaxationWaveform } from './relaxation';
 
@@ -60,7 +60,6 @@ export const comparatorRc: CircuitModel = {
       return issues;
     }
     issues.push(...hysteresisIssues(hysteresis(input), { upper: 'vref', lower: 'vref', swing: 'voh' }));
-    if (!hasErrors(issues)) issues.push(...overflowIssues(comparatorRc.compute(input), oscillatorKeys, 'c'));
     return issues;
   },
 

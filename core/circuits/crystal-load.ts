@@ -1,6 +1,6 @@
 // Crystal load capacitance: the two loading capacitors in series plus the stray capacitance.
 import type { CircuitModel, ModelIssue } from './model';
-import { capacitor, checkFinite, checkPositive, eng, finiteOnly, percent, hasErrors, overflowIssues } from './common';
+import { capacitor, checkFinite, checkPositive, eng, finiteOnly, percent } from './common';
 
 const source = 'Pierce oscillator load: CL = C1·C2/(C1 + C2) + Cstray, common practice (crystal makers\' application notes)';
 
@@ -30,7 +30,6 @@ export const crystalLoad: CircuitModel = {
     if (checkFinite(input, ['cstray'], issues) && input.values.cstray < 0) {
       issues.push({ key: 'cstray', message: `cstray cannot be negative (got ${eng(input.values.cstray, 'F')})` });
     }
-    if (!hasErrors(issues)) issues.push(...overflowIssues(crystalLoad.compute(input), ['load', 'error'], 'c1'));
     return issues;
   },
 

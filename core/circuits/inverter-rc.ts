@@ -1,7 +1,7 @@
 // Two-inverter RC oscillator: C from the second inverter's output kicks the timing node past the supply rails.
 import { rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
-import { capacitor, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, resistor, voltage, voltageCautions, hasErrors, overflowIssues, oscillatorKeys } from './common';
+import { capacitor, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, resistor, voltage, voltageCautions } from './common';
 import { relaxationResults, relaxationWaveform, type Relaxation } from './relaxation';
 
 const source = 'standard RC charging law for the two-inverter RC oscillator (≈ 2.2·R·C at a mid-supply threshold), common practice';
@@ -46,7 +46,6 @@ export const inverterRc: CircuitModel = {
     } else if (!(threshold > 0 && threshold < supply)) {
       issues.push({ key: 'threshold', message: `threshold ${eng(threshold, 'V')} must lie strictly between 0 V and the supply ${eng(supply, 'V')}` });
     }
-    if (!hasErrors(issues)) issues.push(...overflowIssues(inverterRc.compute(input), oscillatorKeys, 'c'));
     return issues;
   },
 

@@ -1,5 +1,6 @@
 // The shape every circuit model file exports. One model per file; the registry lists them.
 import type { Dim } from '../types';
+import type { CodeId } from '../codes';
 
 /** A numeric parameter of a circuit, in SI units. */
 export interface QuantityParam {
@@ -63,6 +64,8 @@ export interface ResultSpec {
   dim: Dim;
   /** Fractions shown as percent (duty, error). */
   percent?: boolean;
+  /** Computed only when an optional key is given (a timer's duty needs `compare`); others are always computed. */
+  optional?: boolean;
 }
 
 /** A physics problem with the inputs, naming the offending key. */
@@ -70,6 +73,8 @@ export interface ModelIssue {
   key: string;
   message: string;
   severity?: 'error' | 'warning' | 'info';
+  /** The finding's code when it is not a plain physics problem (`register-range`, `rate-error`, `supply-range`). */
+  code?: CodeId;
 }
 
 /** One line of the hover's working: the formula, the numbers substituted, and its published source. */
@@ -129,9 +134,12 @@ export interface CircuitModel {
   results: readonly ResultSpec[];
   /** Result keys shown on the code lens, in order. */
   headline: readonly string[];
-  /** Physics checks on resolved inputs (after defaults). An error here means compute() is not called. */
+  /** Physics checks on resolved inputs (after defaults), without computing. An error here means compute() is not called. */
   validate(input: ModelInput): ModelIssue[];
-  /** Results in SI units; every value finite. */
+  /**
+   * Results in SI units. The engine calls it once per evaluation and checks afterwards that every result not
+   * marked `optional` is a finite number (an overflow is a `result-overflow` error, not a missing number).
+   */
   compute(input: ModelInput): Record<string, number>;
   working(input: ModelInput, results: Readonly<Record<string, number>>): WorkingLine[];
   waveform?(input: ModelInput, cycles: number): Waveform;

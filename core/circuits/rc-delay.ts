@@ -1,7 +1,7 @@
 // RC delay: the time for a capacitor charging through R to pass a level (power-on reset, enable delays).
 import { rcReaches, rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
-import { capacitor, checkFinite, checkPositive, eng, finiteOnly, resistor, safetyCautions, voltage, voltageCautions, hasErrors, overflowIssues } from './common';
+import { capacitor, checkFinite, checkPositive, eng, finiteOnly, resistor, safetyCautions, voltage, voltageCautions } from './common';
 import { sampleRcSegments } from './segments';
 
 function delayTime(input: ModelInput): number {
@@ -40,7 +40,6 @@ export const rcDelay: CircuitModel = {
     if (!rcReaches(from, to, toward)) {
       issues.push({ key: 'to', message: `starting at ${eng(from, 'V')} and heading for ${eng(toward, 'V')}, the capacitor never reaches ${eng(to, 'V')}` });
     }
-    if (!hasErrors(issues)) issues.push(...overflowIssues(rcDelay.compute(input), ['time'], 'c'));
     return issues;
   },
 

@@ -1,6 +1,6 @@
 // Inverting Schmitt trigger with R from its output to C at its input (one-gate RC oscillator).
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
-import { capacitor, checkFinite, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, quantity, resistor, voltage, voltageCautions, hasErrors, overflowIssues, oscillatorKeys } from './common';
+import { capacitor, checkFinite, checkPositive, eng, finiteOnly, oscillatorHeadline, oscillatorResults, quantity, resistor, voltage, voltageCautions } from './common';
 import { hysteresisIssues, hysteresisRelaxation, hysteresisWorking, type Hysteresis } from './hysteresis';
 import { relaxationResults, relaxationWaveform } from './relaxation';
 
@@ -44,7 +44,6 @@ export const schmittRc: CircuitModel = {
       issues.push({ key: 'voh', severity: 'warning', message: `output high ${eng(input.values.voh, 'V')} is above the supply ${eng(input.values.supply, 'V')}` });
     }
     issues.push(...hysteresisIssues(hysteresis(input), { upper: 'vt+', lower: 'vt-', swing: 'voh' }));
-    if (!hasErrors(issues)) issues.push(...overflowIssues(schmittRc.compute(input), oscillatorKeys, 'c'));
     return issues;
   },
 

@@ -1,6 +1,7 @@
 // MCU timer: a counter clocked at clock/prescaler that wraps at the reload (period) register.
 import type { CircuitModel, ModelInput, ModelIssue, RegisterSearch, Waveform } from './model';
-import { checkPositive, eng, finiteOnly, percent, quantity, safetyCautions, hasErrors, overflowIssues } from './common';
+import { Code } from '../codes';
+import { checkPositive, eng, finiteOnly, percent, quantity, safetyCautions } from './common';
 import { anyPrescaler, normaliseSet, setContains, setText } from './integer-set';
 import { searchTimerRegisters, ticksPerPeriod, type CountMode } from './timer-search';
 import { clampCycles, finitePoints } from './segments';
@@ -44,7 +45,7 @@ export const timer: CircuitModel = {
   results: [
     { key: 'period', label: 'period', dim: 's' },
     { key: 'frequency', label: 'frequency', dim: 'Hz' },
-    { key: 'duty', label: 'duty', dim: '', percent: true },
+    { key: 'duty', label: 'duty', dim: '', percent: true, optional: true },
     { key: 'counts', label: 'clock ticks per period (after the prescaler)', dim: '' },
   ],
   headline: ['frequency', 'period', 'duty'],
@@ -54,32 +55,31 @@ export const timer: CircuitModel = {
     if (!checkPositive(input, ['clock'], issues)) return issues;
     const { prescaler, reload, bits } = input.values;
     if (!(Number.isInteger(bits) && bits >= 1 && bits <= 53)) {
-      issues.push({ key: 'bits', message: `bits must be a whole number from 1 to 53 (got ${bits})` });
+      issues.push({ key: 'bits', code: Code.registerRange, message: `bits must be a whole number from 1 to 53 (got ${bits})` });
       return issues;
     }
     const prescalers = normaliseSet(input.lists.prescalers ?? anyPrescaler);
     if (!(Number.isInteger(prescaler) && prescaler >= 1)) {
-      issues.push({ key: 'prescaler', message: `prescaler must be a whole division ratio of 1 or more (got ${prescaler})` });
+      issues.push({ key: 'prescaler', code: Code.registerRange, message: `prescaler must be a whole division ratio of 1 or more (got ${prescaler})` });
     } else if (!setContains(prescalers, prescaler)) {
-      issues.push({ key: 'prescaler', message: `prescaler ${prescaler} is not one of the allowed ratios (${setText(prescalers)})` });
+      issues.push({ key: 'prescaler', code: Code.registerRange, message: `prescaler ${prescaler} is not one of the allowed ratios (${setText(prescalers)})` });
     }
     const top = 2 ** bits - 1;
     const least = mode(input) === 'up' ? 0 : 1;
     if (!Number.isInteger(reload)) {
-      issues.push({ key: 'reload', message: `reload must be a whole number (got ${reload})` });
+      issues.push({ key: 'reload', code: Code.registerRange, message: `reload must be a whole number (got ${reload})` });
     } else if (reload < least || reload > top) {
-      issues.push({ key: 'reload', message: `reload ${reload} is outside ${least}..${top} for a ${bits}-bit ${mode(input)} counter` });
+      issues.push({ key: 'reload', code: Code.registerRange, message: `reload ${reload} is outside ${least}..${top} for a ${bits}-bit ${mode(input)} counter` });
     }
     if (hasCompare(input)) {
       const compare = input.values.compare;
       const full = mode(input) === 'up' ? reload + 1 : reload;
       if (!Number.isInteger(compare) || compare < 0) {
-        issues.push({ key: 'compare', message: `compare must be a whole number of 0 or more (got ${compare})` });
+        issues.push({ key: 'compare', code: Code.registerRange, message: `compare must be a whole number of 0 or more (got ${compare})` });
       } else if (Number.isInteger(reload) && compare > full) {
-        issues.push({ key: 'compare', severity: 'warning', message: `compare ${compare} is beyond the period (${full}): the output stays active, duty 100 %` });
+        issues.push({ key: 'compare', severity: 'warning', code: Code.registerRange, message: `compare ${compare} is beyond the period (${full}): the output stays active, duty 100 %` });
       }
     }
-    if (!hasErrors(issues)) issues.push(...overflowIssues(timer.compute(input), ['period', 'frequency', 'counts'], 'clock'));
     return issues;
   },
 

@@ -2,11 +2,24 @@
 import * as path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { Finding } from '../types';
-import { describeCode } from '../code-descriptions';
+import { codeInfo } from '../codes';
 import { locate } from './locate';
 import type { CheckedFile } from './run';
 
 const levels: Record<Finding['severity'], 'error' | 'warning' | 'note'> = { error: 'error', warning: 'warning', info: 'note' };
+
+/** A rule's metadata from the one table of codes (core/codes.ts). */
+function rule(id: string) {
+  const info = codeInfo(id);
+  if (!info) return { id, shortDescription: { text: id } };
+  return {
+    id,
+    shortDescription: { text: info.short },
+    fullDescription: { text: info.full },
+    help: { text: info.help },
+    defaultConfiguration: { level: levels[info.severity] },
+  };
+}
 
 export function sarifReport(checked: CheckedFile[], cwd: string, version: string): string {
   const ruleIds: string[] = [];
@@ -45,7 +58,7 @@ export function sarifReport(checked: CheckedFile[], cwd: string, version: string
           driver: {
             name: 'Tickmark',
             version,
-            rules: ruleIds.map((id) => ({ id, shortDescription: { text: describeCode(id) } })),
+            rules: ruleIds.map(rule),
           },
         },
         originalUriBaseIds: { SRCROOT: { uri: pathToFileURL(cwd + path.sep).href } },

@@ -35,7 +35,7 @@ const metaKeyDocs: readonly MetaKeyDoc[] = [
   { key: 'series', detail: 'E3 … E192 or none (setting default E24)', documentation: 'IEC 60063 series for solved parts; when written, R and C values off the series are flagged with a fix.' },
   { key: 'samples', detail: 'Monte Carlo runs', documentation: 'Number of random draws within the tolerances, for p1/p99 percentiles beside the worst case.' },
   { key: 'seed', detail: 'Monte Carlo seed', documentation: 'Seed of the random draws, so a run repeats exactly.' },
-  { key: 'from', detail: 'firmware file for names', documentation: 'Path (relative to this note) of a C file or header whose constants the block may name.', markdownOnly: true },
+  { key: 'firmware', detail: 'firmware file for names', documentation: 'Path (relative to this note) of a C file or header whose constants the block may name.', markdownOnly: true },
   { key: 'data-model', detail: 'ilp32, lp64 or ip16', documentation: 'Integer widths for evaluating firmware constants; overrides the tickmark.c.dataModel setting.' },
   { key: 'safety', detail: 'yes or no', documentation: 'Whether this timing guards people or property (watchdog, reset, interlock): `yes` adds the safety caution. A block named like `watchdog` always carries it.' },
 ];

@@ -110,15 +110,27 @@ describe('analysis of one block', () => {
     assert.match(errors(unknown)[0], /STAGES/);
   });
 
-  it('refuses a `from:` file outside the workspace', () => {
-    const block = noteBlock(['circuit: timer', 'from: ../../../etc/board.h', 'clock: F', 'prescaler: 1', 'reload: 9']);
+  it('refuses a `firmware:` file outside the workspace', () => {
+    const block = noteBlock(['circuit: timer', 'firmware: ../../../etc/board.h', 'clock: F', 'prescaler: 1', 'reload: 9']);
     assert.match(errors(block)[0], /outside the workspace/);
   });
 
-  it('reads constants from the file `from:` names', () => {
+  it('reads constants from the file `firmware:` names', () => {
+    const block = noteBlock(['circuit: timer', 'firmware: ../fw/board.h', 'clock: CLOCK_HZ', 'prescaler: 8', 'reload: TOP'], { 'fw/board.h': '#define CLOCK_HZ (8000000UL)\nenum { TOP = 999 };\n' });
+    assert.deepEqual(errors(block), []);
+    close(block.values.frequency, 1000);
+    assert.deepEqual(block.findings, []);
+  });
+
+  it('still reads the older `from:` with a C-family path, with a note and a fix suggesting `firmware:`', () => {
     const block = noteBlock(['circuit: timer', 'from: ../fw/board.h', 'clock: CLOCK_HZ', 'prescaler: 8', 'reload: TOP'], { 'fw/board.h': '#define CLOCK_HZ (8000000UL)\nenum { TOP = 999 };\n' });
     assert.deepEqual(errors(block), []);
     close(block.values.frequency, 1000);
+    const renamed = block.findings.filter((f) => f.code === 'key-renamed');
+    assert.equal(renamed.length, 1);
+    assert.equal(renamed[0].severity, 'info');
+    assert.match(renamed[0].message, /`firmware:`/);
+    assert.equal(renamed[0].fixes?.[0].edits[0].newText, 'firmware');
   });
 
   it('reads `from:` as rc-delay\'s start voltage unless it names a firmware file', () => {
@@ -127,7 +139,7 @@ describe('analysis of one block', () => {
     assert.deepEqual(errors(block), []);
     close(block.values.time, Math.LN2 * 10e3 * 1e-6);
     const typo = noteBlock(['circuit: timer', 'from: board', 'clock: 1 MHz', 'prescaler: 1', 'reload: 9']);
-    assert.match(typo.findings[0].message, /ends in \.h/);
+    assert.match(typo.findings[0].message, /named with `firmware:`/);
   });
 
   it('refuses an absolute tolerance in another unit than its value', () => {
@@ -152,7 +164,8 @@ describe('analysis of one block', () => {
 
   it('reports a value above the parameter table\'s limit once, not again from the model', () => {
     const block = noteBlock(['circuit: timer', 'clock: 1 MHz', 'prescaler: 0', 'reload: 9']);
-    assert.equal(block.findings.filter((f) => f.code === 'physics').length, 1);
+    assert.equal(block.findings.filter((f) => f.code === 'register-range').length, 1);
+    assert.equal(block.findings.filter((f) => f.code === 'physics').length, 0);
   });
 
   it('says that `2u` beside a firmware name is 2 µ, not C\'s unsigned 2', () => {

@@ -38,7 +38,7 @@ describe('block completion', () => {
     assert.match(keys.find((e) => e.label === 'c')!.detail, /\[F\].*required/);
     assert.equal(keys[0].insertText, 'vt+: ');
     // DESIGN.md meta keys; `circuit` is written already.
-    assert.deepEqual(entries.filter((e) => e.kind === 'meta').map((e) => e.label), ['expect', 'target', 'series', 'samples', 'seed', 'from', 'data-model', 'safety']);
+    assert.deepEqual(entries.filter((e) => e.kind === 'meta').map((e) => e.label), ['expect', 'target', 'series', 'samples', 'seed', 'firmware', 'data-model', 'safety']);
   });
 
   it('gives the 555 control key its 2/3-supply default and diode its words', () => {
@@ -62,12 +62,12 @@ describe('block completion', () => {
     assert.deepEqual(labels('```timing\n|\n```\n').slice(0, 2), ['circuit', 'expect']);
   });
 
-  it('completes inside a C block comment, on the line the scanner has not taken yet, without `from`', () => {
+  it('completes inside a C block comment, on the line the scanner has not taken yet, without `firmware`', () => {
     const text = '/* @timing tick\n * circuit: timer\n * clock: 16 MHz\n * |\n */\nint x;\n';
     const names = labels(text, 'c');
     assert.deepEqual(names.slice(0, 6), ['prescaler', 'reload', 'mode', 'compare', 'bits', 'prescalers']);
     assert.equal(names.includes('clock'), false);
-    assert.equal(names.includes('from'), false);
+    assert.equal(names.includes('firmware'), false);
     assert.deepEqual(labels('/* @timing\n * circuit: timer\n * mode:|\n */\n', 'c'), ['up', 'up-down']);
   });
 

@@ -25,7 +25,7 @@ describe('how results read', () => {
   });
 
   it('gives the working with its source and the firmware locations in the hover', () => {
-    const block = noteBlock(['circuit: timer', 'from: ../fw/clock.h', 'clock: CLK', 'prescaler: 8', 'reload: 999'], { 'fw/clock.h': '\n#define CLK 8000000\n' });
+    const block = noteBlock(['circuit: timer', 'firmware: ../fw/clock.h', 'clock: CLK', 'prescaler: 8', 'reload: 999'], { 'fw/clock.h': '\n#define CLK 8000000\n' });
     const hover = hoverMarkdown(block);
     assert.match(hover, /`CLK` = 8000000 — clock\\\.h:2/);
     assert.match(hover, /\| clock ticks per period .* \| 1000 \|/);

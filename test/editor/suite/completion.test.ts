@@ -36,8 +36,8 @@ export function completionTests(): void {
       assert.deepEqual(ours(items, vscode.CompletionItemKind.Property), ['prescaler', 'reload', 'mode', 'compare', 'bits', 'prescalers']);
       const meta = ours(items, vscode.CompletionItemKind.Keyword);
       assert.ok(meta.includes('expect') && meta.includes('data-model'));
-      // `from:` names a firmware file from a note; a C block reads its own file.
-      assert.equal(meta.includes('from'), false);
+      // `firmware:` names a note's firmware file; a C block reads its own file.
+      assert.equal(meta.includes('firmware'), false);
       const bits = items.find((i) => labelOf(i) === 'bits');
       assert.match(String(bits?.detail), /default 16/);
       assert.equal(bits?.insertText, 'bits: ');

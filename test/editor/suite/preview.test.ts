@@ -83,7 +83,7 @@ export function previewTests(): void {
       assert.equal(row(wide, 'delay to the end level'), `${t.toFixed(2)} ms | ${(t * 0.95).toFixed(2)}–${(t * 1.05).toFixed(2)} ms`);
     });
 
-    it('resolves from: against the note when the preview names the document, and says when it cannot', async () => {
+    it('resolves firmware: against the note when the preview names the document, and says when it cannot', async () => {
       const uri = await demoUri('notes/watchdog.md');
       const doc = await vscode.workspace.openTextDocument(uri);
       const md = timingPreviewPlugin(new MarkdownIt(), new AnalysisStore(silentLogger));
@@ -94,7 +94,7 @@ export function previewTests(): void {
       assert.doesNotMatch(withNote, /not read here/);
       const alone = md.render(doc.getText(), {});
       assert.equal(row(alone, 'period'), undefined);
-      assert.match(alone, /Rendered without its note: the firmware file named by from: is not read here\./);
+      assert.match(alone, /Rendered without its note: the firmware file named by firmware: is not read here\./);
     });
   });
 }
