@@ -28,6 +28,22 @@ function bundleIsCurrent() {
   }
 }
 
+// `tickmark lsp --stdio`: the language server, from its own bundle (out/server.js) or its sources.
+if (process.argv[2] === 'lsp') {
+  const transports = ['--stdio', '--node-ipc', '--socket', '--pipe'];
+  if (!process.argv.slice(3).some((a) => transports.some((t) => a === t || a.startsWith(t + '=')))) {
+    process.stderr.write('usage: tickmark lsp --stdio\n\nServes the analysis over the Language Server Protocol on standard input and output.\n');
+    process.exit(process.argv.includes('--help') || process.argv.includes('-h') ? 0 : 2);
+  }
+  const serverBundle = path.join(root, 'out', 'server.js');
+  const serverSource = path.join(root, 'server', 'main.ts');
+  const current = fs.existsSync(serverBundle) && (!fs.existsSync(serverSource) ||
+    fs.statSync(serverBundle).mtimeMs >= Math.max(newestSource(path.join(root, 'core')), newestSource(path.join(root, 'server'))));
+  if (!current) require('tsx/cjs');
+  require(current ? serverBundle : serverSource).startServer();
+  return;
+}
+
 let main;
 if (bundleIsCurrent()) {
   main = require(bundle).main;

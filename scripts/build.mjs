@@ -59,6 +59,17 @@ const targets = [
     platform: 'node',
     target: 'node20',
   },
+  // The language server (`tickmark lsp --stdio`, and the process the extension starts) as one file.
+  {
+    ...common,
+    entryPoints: [at('server/main.ts')],
+    outfile: at('out/server.js'),
+    // Minified like the CLI: every editor starts it cold.
+    minify: true,
+    format: 'cjs',
+    platform: 'node',
+    target: 'node20',
+  },
 ];
 
 // The webview script sits beside its stylesheet in media/ (git-ignored media/dist/): the panel's

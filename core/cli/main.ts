@@ -25,6 +25,7 @@ const usage = `usage: tickmark <command> [options]
 commands:
   check   compute every timing block in notes and firmware, report claims that do not hold
   wave    write one block's waveform as SVG
+  lsp     serve the same analysis to any editor over the Language Server Protocol (\`tickmark lsp --stdio\`)
 
 run \`tickmark <command> --help\` for its options; \`tickmark --version\` prints the version
 `;
