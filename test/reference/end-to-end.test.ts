@@ -25,7 +25,7 @@ const blocks: Record<string, { lines: string[]; si: Record<string, number> }> = 
   'servo-frame': { lines: ['circuit: timer', 'clock: 16MHz', 'prescaler: ?', 'reload: ?', 'prescalers: 1, 8, 64, 256, 1024', 'target: 1 / (20 ms)'], si: { clock: 16e6 } },
   'console-fast': { lines: ['circuit: baud', 'clock: 14.7456 MHz', 'baud: 115200'], si: { clock: 14.7456e6, baud: 115200, oversampling: 16 } },
   'console-avr': { lines: ['circuit: baud', 'clock: 16 MHz', 'baud: 38.4k'], si: { clock: 16e6, baud: 38400, oversampling: 16 } },
-  'hse-load': { lines: ['circuit: crystal-load', 'cl: 12.5 pF', 'c1: 15p', 'c2: 18 pF', 'cstray: 4p7'], si: { cl: 12.5e-12, c1: 15e-12, c2: 18e-12, cstray: 4.7e-12 } },
+  'crystal-caps': { lines: ['circuit: crystal-load', 'cl: 12.5 pF', 'c1: 15p', 'c2: 18 pF', 'cstray: 4p7'], si: { cl: 12.5e-12, c1: 15e-12, c2: 18e-12, cstray: 4.7e-12 } },
 };
 
 const note = ['# Timing of the bench unit', '', ...Object.entries(blocks).map(([name, b]) => markdownBlock(name, b.lines))].join('\n');
@@ -181,7 +181,7 @@ describe('end to end: timing blocks through tickmark check --json', function () 
   });
 
   it('crystal-load: CL = C1·C2/(C1 + C2) + Cstray', () => {
-    const b = block('hse-load');
+    const b = block('crystal-caps');
     // Pierce load as in crystal makers' application notes, from memory.
     const load = (15e-12 * 18e-12) / (15e-12 + 18e-12) + 4.7e-12;
     near(b.values.load, load, 1e-12, 'load');

@@ -5,14 +5,14 @@
 #include <stdint.h>
 
 /* 8 MHz crystal, PLL x2. */
-#define HSE_CLOCK_HZ      8000000u
+#define XTAL_CLOCK_HZ     8000000u
 #define PLL_MULTIPLIER    2u
-#define SYS_CLOCK_HZ      (HSE_CLOCK_HZ * PLL_MULTIPLIER)
+#define SYS_CLOCK_HZ      (XTAL_CLOCK_HZ * PLL_MULTIPLIER)
 
-/* Internal low-speed oscillator feeding the independent watchdog. */
-#define LSI_CLOCK_HZ      32000u
-#define WDG_DIV           16u
-#define WDG_TOP           3999u
+/* Slow on-chip RC oscillator feeding the watchdog. */
+#define SLOW_OSC_HZ       32000u
+#define WATCHDOG_DIV      16u
+#define WATCHDOG_TOP      3999u
 
 /* Scheduler tick: SYS_CLOCK_HZ / TICK_DIV / (TICK_TOP + 1). */
 #define TICK_DIV          64u

@@ -12,5 +12,5 @@
  */
 void radio_uart_init(void)
 {
-    uart_set_divisor(UART1, UART_DIVISOR);
+    uart_set_divisor(RADIO_PORT, UART_DIVISOR);
 }

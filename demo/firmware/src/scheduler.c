@@ -10,14 +10,14 @@
  */
 void scheduler_init(void)
 {
-    timer_set_prescaler(TIMER2, TICK_DIV - 1u);
-    timer_set_reload(TIMER2, TICK_TOP);
-    timer_enable_irq(TIMER2);
+    timer_set_prescaler(TICK_TIMER, TICK_DIV - 1u);
+    timer_set_reload(TICK_TIMER, TICK_TOP);
+    timer_enable_irq(TICK_TIMER);
 }
 
 static volatile uint32_t ticks;
 
-void TIMER2_IRQHandler(void)
+void scheduler_tick_isr(void)
 {
     ticks++;
 }

@@ -36,7 +36,7 @@ export function hoverTests(): void {
     it('gives no hover outside a block', async () => {
       const uri = await demoUri('notes/power-and-clock.md');
       const hovers = (await vscode.commands.executeCommand<vscode.Hover[]>('vscode.executeHoverProvider', uri, new vscode.Position(0, 2))) ?? [];
-      const ours = hovers.flatMap((h) => h.contents).filter((c) => typeof c !== 'string' && 'value' in c && /por-delay|hse-load/.test(c.value));
+      const ours = hovers.flatMap((h) => h.contents).filter((c) => typeof c !== 'string' && 'value' in c && /por-delay|crystal-caps/.test(c.value));
       assert.equal(ours.length, 0);
     });
   });

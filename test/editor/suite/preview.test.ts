@@ -87,7 +87,7 @@ export function previewTests(): void {
       const uri = await demoUri('notes/watchdog.md');
       const doc = await vscode.workspace.openTextDocument(uri);
       const md = timingPreviewPlugin(new MarkdownIt(), new AnalysisStore(silentLogger));
-      // board.h: LSI_CLOCK_HZ 32000, WDG_DIV 16, WDG_TOP 3999; a period of (3999 + 1) · 16 / 32000 Hz = 2 s
+      // board.h: SLOW_OSC_HZ 32000, WATCHDOG_DIV 16, WATCHDOG_TOP 3999; a period of (3999 + 1) · 16 / 32000 Hz = 2 s
       // (counts = reload + 1, DESIGN.md timer model). The note gives the clock ±10 %: the period is 2 s / (1 ± 0.1).
       const withNote = md.render(doc.getText(), { currentDocument: uri });
       assert.equal(row(withNote, 'period'), `2 s | ${(2 / 1.1).toFixed(3)}–${(2 / 0.9).toFixed(3)} s`);
