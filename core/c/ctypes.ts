@@ -8,7 +8,10 @@ export interface IntType {
   /** For a typedef (`uint16_t`): the keyword type it names, which arithmetic results are reported as. */
   base?: string;
 }
-export interface FloatType { kind: 'float'; name: 'float' | 'double' | 'long double'; rank: number }
+export interface FloatType {
+  kind: 'float'; name: 'float' | 'double' | 'long double'; rank: number;
+  /** binary32 or binary64 (IEC 60559); a wider long double is read as binary64. */ bits: 32 | 64;
+}
 export type CType = IntType | FloatType;
 
 /** An evaluated value: BigInt for integer types, a JS double for floating types. */
@@ -30,8 +33,11 @@ export interface TypeSystem {
 
 const it = (name: string, bits: number, signed: boolean, rank: number): IntType => ({ kind: 'int', name, bits, signed, rank });
 
-/** `charSigned`: plain char is signed on x86 and AVR gcc, unsigned on ARM (an implementation choice, C11 6.2.5p15). */
-export function typeSystem(model: DataModel, charSigned = true): TypeSystem {
+/**
+ * `charSigned`: plain char is signed on x86 and AVR gcc, unsigned on ARM and RISC-V (an implementation choice,
+ * C11 6.2.5p15; the processors' ABIs), so by default unsigned under ilp32 only.
+ */
+export function typeSystem(model: DataModel, charSigned = model !== 'ilp32'): TypeSystem {
   const intBits = model === 'ip16' ? 16 : 32;
   const longBits = model === 'lp64' ? 64 : 32;
   const types: IntType[] = [
@@ -43,9 +49,11 @@ export function typeSystem(model: DataModel, charSigned = true): TypeSystem {
     it('long long', 64, true, RANK.llong), it('unsigned long long', 64, false, RANK.llong),
   ];
   const named = new Map<string, CType>(types.map((t) => [t.name, t]));
-  named.set('float', { kind: 'float', name: 'float', rank: 0 });
-  named.set('double', { kind: 'float', name: 'double', rank: 1 });
-  named.set('long double', { kind: 'float', name: 'long double', rank: 2 });
+  // avr-gcc (5.4 and 7.3, as Debian ships it) makes double and long double 32-bit, like float.
+  const doubleBits = model === 'ip16' ? 32 : 64;
+  named.set('float', { kind: 'float', name: 'float', rank: 0, bits: 32 });
+  named.set('double', { kind: 'float', name: 'double', rank: 1, bits: doubleBits });
+  named.set('long double', { kind: 'float', name: 'long double', rank: 2, bits: doubleBits });
   const by = (n: string): IntType => named.get(n) as IntType;
   // <stdint.h> as glibc (x86, x86-64) and avr-libc define them; the names keep their spelling for display.
   const alias = (name: string, of: string): void => { named.set(name, { ...by(of), name, base: of }); };
@@ -73,16 +81,32 @@ export function wrap(v: bigint, t: IntType): bigint {
 
 /** Converts a value to a type; floating to integer out of range is undefined (C11 6.3.1.4p1), so it returns an error text. */
 export function convert(x: Val, t: CType): Val | string {
-  if (t.kind === 'float') {
-    const d = typeof x.v === 'bigint' ? Number(x.v) : x.v;
-    return { v: t.name === 'float' ? Math.fround(d) : d, t };
-  }
+  if (t.kind === 'float') return { v: typeof x.v === 'bigint' ? integerToFloating(x.v, t) : roundFloating(x.v, t), t };
   if (typeof x.v === 'bigint') return { v: wrap(x.v, t), t };
   if (t.bits === 1) return { v: x.v !== 0 ? 1n : 0n, t };
   if (!Number.isFinite(x.v)) return `${x.v} cannot be converted to ${t.name}`;
   const truncated = BigInt(Math.trunc(x.v));
   if (!fits(truncated, t)) return `${x.v} is out of range of ${t.name} (undefined behaviour, C11 6.3.1.4)`;
   return { v: truncated, t };
+}
+
+/** A result of floating arithmetic rounded to the type's format: each binary32 operation is exact in binary64 and
+ * then rounded once more, which gives the binary32 result for + - * / (IEC 60559 double rounding is innocuous
+ * when the wider format has at least 2p + 2 bits, Figueroa 1995). */
+export const roundFloating = (d: number, t: FloatType): number => (t.bits === 32 ? Math.fround(d) : d);
+
+/** An integer converted to a floating type, rounded once to nearest, ties to even (C11 6.3.1.4p2, Annex F). */
+export function integerToFloating(v: bigint, t: FloatType): number {
+  const precision = t.bits === 32 ? 24 : 53;
+  const magnitude = v < 0n ? -v : v;
+  const excess = magnitude.toString(2).length - precision;
+  if (excess <= 0) return Number(v);
+  const half = 1n << BigInt(excess - 1);
+  let kept = magnitude >> BigInt(excess);
+  const rest = magnitude & ((half << 1n) - 1n);
+  if (rest > half || (rest === half && (kept & 1n) === 1n)) kept += 1n;
+  const rounded = Number(kept) * 2 ** excess;
+  return roundFloating(v < 0n ? -rounded : rounded, t);
 }
 
 /** Integer promotions, C11 6.3.1.1p2. */

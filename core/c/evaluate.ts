@@ -2,7 +2,7 @@
 // `live` is false inside an operand that C does not evaluate (the untaken arm of ?:, the right of a
 // short-circuited && or ||): its type still counts, its division by zero does not.
 import { Code } from '../codes';
-import { commonType, convert, promote, wrap, type CType, type IntType, type TypeSystem, type Val } from './ctypes';
+import { commonType, convert, promote, roundFloating, wrap, type CType, type FloatType, type IntType, type TypeSystem, type Val } from './ctypes';
 import { parseChar, parseNumber } from './literals';
 import { arithmeticOverflow, leftShiftOverflow, negationOverflow, operationToken } from './overflow';
 import type { Node } from './parse';
@@ -71,7 +71,7 @@ export function evaluate(node: Node, ctx: EvalContext, live = true): EvalResult 
         if (isError(a)) return a;
         t = a.t;
       }
-      const bytes = t.kind === 'int' ? Math.max(1, t.bits / 8) : t.name === 'float' ? 4 : t.name === 'double' ? 8 : undefined;
+      const bytes = t.kind === 'int' ? Math.max(1, t.bits / 8) : t.name !== 'long double' || t.bits === 32 ? t.bits / 8 : undefined;
       if (bytes === undefined) return { err: `sizeof(${t.name}) depends on the compiler`, code: Code.cSyntax, tok: node.tok };
       return { v: BigInt(bytes), t: ts.sizeT };
     }
@@ -137,7 +137,7 @@ function binary(node: Extract<Node, { k: 'binary' }>, ctx: EvalContext, live: bo
     const q = y as number;
     const f = op === '+' ? p + q : op === '-' ? p - q : op === '*' ? p * q : op === '/' ? p / q : undefined;
     if (f === undefined) return integerOnly();
-    return { v: t.name === 'float' ? Math.fround(f) : f, t };
+    return { v: roundFloating(f, t as FloatType), t };
   }
   // BigInt division and remainder truncate toward zero, as C11 6.5.5p6 requires.
   const r = op === '+' ? x + y : op === '-' ? x - y : op === '*' ? x * y : op === '/' ? x / y : op === '%' ? x % y

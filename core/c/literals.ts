@@ -1,5 +1,5 @@
 // Integer, floating and character constants: value and type (ISO C11 6.4.4).
-import { fits, type CType, type IntType, type TypeSystem, type Val } from './ctypes';
+import { fits, roundFloating, type CType, type FloatType, type IntType, type TypeSystem, type Val } from './ctypes';
 
 /** Types tried in order by suffix and base, C11 6.4.4.1p5 (binary 0b, a gcc extension, types like hex). */
 function candidates(suffix: string, decimal: boolean): string[] {
@@ -65,8 +65,8 @@ function parseFloating(text: string, ts: TypeSystem): Val | string {
     value = Number(body);
   }
   if (!Number.isFinite(value)) return `floating constant '${text}' is out of range`;
-  const t = ts.named.get(suffix === 'f' ? 'float' : suffix === 'l' ? 'long double' : 'double') as CType;
-  return { v: suffix === 'f' ? Math.fround(value) : value, t };
+  const t = ts.named.get(suffix === 'f' ? 'float' : suffix === 'l' ? 'long double' : 'double') as FloatType;
+  return { v: roundFloating(value, t), t };
 }
 
 const SIMPLE_ESCAPES: Record<string, number> = {

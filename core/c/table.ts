@@ -45,7 +45,7 @@ export interface ConstantTableOptions {
   read: (uri: string) => string | undefined;
   realpath?: (uri: string) => string | undefined;
   maxFileBytes?: number;
-  /** Plain char signed (x86, AVR gcc: the default) or unsigned (ARM). */
+  /** Plain char signed (x86, AVR gcc) or unsigned (ARM, RISC-V); by default unsigned under ilp32 only. */
   charSigned?: boolean;
 }
 
@@ -69,7 +69,7 @@ function definitionOf(d: MacroDef | Declaration): ConstantDefinition {
 const where = (d: MacroDef | Declaration): string => `${d.uri.split(/[\\/]/).pop()}:${d.line}`;
 
 export function buildConstantTable(entryUri: string, text: string, options: ConstantTableOptions): ConstantTable {
-  const ts = typeSystem(options.dataModel, options.charSigned ?? true);
+  const ts = typeSystem(options.dataModel, options.charSigned);
   const pre = preprocess(entryUri, text, { ...options, ts, maxFileBytes: options.maxFileBytes ?? 1_000_000 });
   const { root } = pre;
   const memo = new Map<string, ConstantResolution>();

@@ -1,15 +1,15 @@
-// Reference check: every expression below is compiled by the C compiler on this machine and its value, signedness
-// and size (via _Generic and sizeof) compared with the evaluator's. gcc (Debian 12.2) is the reference:
-// `gcc -m32 -msse2 -mfpmath=sse` for ilp32 (SSE so float math is not widened by the x87, as on an MCU) and
-// plain `gcc` on x86-64 for lp64. The clause beside each case names the rule of ISO C11 it exercises.
+// Reference check: every expression below is compiled (never run) by the compiler firmware of each data model is
+// built with, and its value, signedness, size (sizeof) and floating type (_Generic) are read from the object file
+// and compared with the evaluator's: gcc 12.2 on x86-64 for lp64, arm-none-eabi-gcc 12.2 (Cortex-M4) for ilp32,
+// avr-gcc 5.4 with avr-libc for ip16 (all from Debian 12; see gcc-print.ts). The clause beside each case names the
+// rule of ISO C11 it exercises. Where the compiler refuses an expression as undefined (an overflow or a shift out
+// of range in a constant expression, gcc -pedantic), the evaluator must report it as undefined too.
 import { skipUnlessCi } from '../helpers/reference';
 import { strict as assert } from 'assert';
-import { execFileSync } from 'node:child_process';
-import * as fs from 'node:fs';
-import * as os from 'node:os';
-import * as path from 'node:path';
 import { buildConstantTable, type CValue, type DataModel } from '../../core/c';
+import { Code } from '../../core/codes';
 import { typeSystem, type CType } from '../../core/c/ctypes';
+import { compileConstants, compilerAvailable, REFERENCE_COMPILERS, type CompiledConstant, type Target } from './gcc-print';
 
 // Definitions seen by both gcc and the evaluator; invented values of a small product.
 const PRELUDE = `
@@ -98,12 +98,15 @@ const CASES: Case[] = [
   { expr: "'A'", rule: 'C11 6.4.4.4p10 a character constant has type int' },
   { expr: "'A' + 1", rule: 'C11 6.4.4.4p10' },
   { expr: "'\\n' + '\\x41' + '\\101' + '\\0'", rule: 'C11 6.4.4.4 escape sequences' },
-  { expr: "'\\xFF'", rule: 'C11 6.4.4.4p10 value of a char: plain char is signed on x86 gcc' },
+  { expr: "'\\xFF'", rule: 'C11 6.4.4.4p10 value of a char: plain char is signed on x86-64 and AVR, unsigned on ARM (6.2.5p15)' },
+  { expr: '(char)200 + 0', rule: 'C11 6.2.5p15 plain char: -56 where it is signed, 200 where unsigned' },
   { expr: "sizeof('A')", rule: 'C11 6.4.4.4p10, 6.5.3.4 (size_t)' },
   { expr: 'sizeof(long) + sizeof(short)', rule: 'C11 6.5.3.4 under the data model' },
   { expr: '(uint32_t)(16e6 / 9600.0 + 0.5)', rule: 'C11 6.3.1.4 floating to integer truncates' },
   { expr: '16e6 / 9600', rule: 'C11 6.4.4.2 an unsuffixed floating constant is double' },
   { expr: '(int)-2.7', rule: 'C11 6.3.1.4p1 truncation toward zero' },
+  { expr: '(unsigned long)(20000001UL * 1.0)', rule: 'C11 6.3.1.8 the integer becomes a double first; avr-gcc\'s double is binary32, so 20000001 rounds to 20000000 under ip16' },
+  { expr: '16000000UL / 3.0', rule: 'C11 6.3.1.8 double division, rounded to binary32 under ip16 (avr-gcc)' },
   { expr: '1.0f / 3', rule: 'C11 6.4.4.2p4 suffix f: float arithmetic' },
   { expr: '1.5f * 2', rule: 'C11 6.3.1.8 int converts to float' },
   { expr: '0x1p4 + 1e3', rule: 'C11 6.4.4.2 hexadecimal floating constant' },
@@ -122,69 +125,43 @@ const CASES: Case[] = [
   { expr: 'VREF / 2', rule: 'C11 6.7.9 const double' },
 ];
 
-function cProgram(cases: Case[]): string {
-  const lines = cases.map((c, i) => {
-    const e = `(${c.expr})`;
-    return `  printf("%d %c %d %u ", ${i}, _Generic(${e}, float: 'f', double: 'd', long double: 'L', default: 'i'), (int)((__typeof__${e})-1 < (__typeof__${e})0), (unsigned)sizeof ${e});
-  if (_Generic(${e}, float: 0, double: 0, long double: 0, default: 1)) { if ((__typeof__${e})-1 < (__typeof__${e})0) printf("%lld\\n", (long long)${e}); else printf("%llu\\n", (unsigned long long)${e}); }
-  else printf("%.17g\\n", (double)${e});`;
-  });
-  return `#include <stdio.h>\n#include <stdint.h>\n${PRELUDE}\nint main(void) {\n${lines.join('\n')}\n  return 0;\n}\n`;
-}
-
-interface GccLine { kind: string; signed: boolean; size: number; value: string }
-
-function runGcc(flags: string[], dir: string, name: string): Map<number, GccLine> {
-  const exe = path.join(dir, name);
-  execFileSync('gcc', ['-std=c11', '-w', ...flags, path.join(dir, 'cases.c'), '-o', exe], { stdio: 'pipe' });
-  const out = execFileSync(exe, { encoding: 'utf8' });
-  const result = new Map<number, GccLine>();
-  for (const line of out.trim().split('\n')) {
-    const [i, kind, signed, size, value] = line.split(' ');
-    result.set(Number(i), { kind, signed: signed === '1', size: Number(size), value });
-  }
-  return result;
-}
-
-const gccAvailable = ((): boolean => { try { execFileSync('gcc', ['--version'], { stdio: 'pipe' }); return true; } catch { return false; } })();
-
 function typeOf(v: CValue, model: DataModel): CType {
   const named = typeSystem(model).named;
   return (named.get(v.type) ?? named.get(v.type === 'ticks_t' ? 'uint16_t' : '')) as CType;
 }
 
-for (const [model, flags] of [['ilp32', ['-m32', '-msse2', '-mfpmath=sse']], ['lp64', []]] as Array<[DataModel, string[]]>) {
-  describe(`C constants against gcc (Debian 12.2) as reference, ${model}`, function () {
-    let gcc: Map<number, GccLine> | undefined;
-    let skipReason = '';
+for (const model of ['lp64', 'ilp32', 'ip16'] as Target[]) {
+  const compiler = REFERENCE_COMPILERS[model];
+  describe(`C constants against ${compiler.label} as reference, ${model}`, function () {
+    let reference: CompiledConstant[] | undefined;
     before(function () {
-      if (!gccAvailable) { skipReason = 'gcc is not installed; reference check skipped'; skipUnlessCi(this, skipReason); }
-      const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-gcc-'));
-      fs.writeFileSync(path.join(dir, 'cases.c'), cProgram(CASES));
-      try { gcc = runGcc(flags, dir, model); } catch (e) {
-        skipReason = `gcc ${flags.join(' ')} could not build the reference program: ${String((e as { stderr?: Buffer }).stderr ?? e)}`;
-        skipUnlessCi(this, skipReason);
-      } finally { fs.rmSync(dir, { recursive: true, force: true }); }
+      if (!compilerAvailable(model)) skipUnlessCi(this, `${compiler.command} is not installed; reference check skipped`);
+      reference = compileConstants(model, { prelude: PRELUDE, expressions: CASES.map((c) => c.expr) });
     });
     const table = buildConstantTable('/firmware/cases.c', PRELUDE, { dataModel: model, includeDirs: [], workspaceRoots: ['/firmware'], read: () => undefined });
 
     CASES.forEach((c, i) => {
       it(`${c.expr}  [${c.rule}]`, function () {
-        if (!gcc) this.skip();
-        const expected = (gcc as Map<number, GccLine>).get(i) as GccLine;
+        if (!reference) this.skip();
+        const expected = (reference as CompiledConstant[])[i];
         const got = table.evaluate(c.expr);
-        assert.ok(got.ok, `evaluator failed: ${got.ok ? '' : got.message}`);
+        if (!expected.ok) {
+          assert.ok(!got.ok, `${compiler.command} refuses it:\n${expected.diagnostic}\nthe evaluator gives ${got.ok ? `${got.value.value} ${got.value.type}` : ''}`);
+          assert.ok(got.code === Code.cUndefined || got.code === Code.cDivZero, `${got.code}: ${got.message}`);
+          return;
+        }
+        assert.ok(got.ok, `evaluator failed: ${got.ok ? '' : got.message}; ${compiler.command} gives ${expected.value}`);
         const t = typeOf(got.value, model);
         assert.ok(t, `unknown type name ${got.value.type}`);
-        if (expected.kind === 'i') {
-          assert.equal(t.kind, 'int', `gcc says integer, evaluator says ${got.value.type}`);
-          assert.equal(BigInt(got.value.value).toString(), expected.value);
+        if (!expected.floating) {
+          assert.equal(t.kind, 'int', `${compiler.command} says integer, evaluator says ${got.value.type}`);
+          assert.equal(BigInt(got.value.value).toString(), expected.value.toString());
           assert.equal(t.kind === 'int' && t.signed, expected.signed, `signedness of ${got.value.type}`);
           assert.equal(t.kind === 'int' ? Math.max(1, t.bits / 8) : 0, expected.size, `size of ${got.value.type}`);
         } else {
-          assert.equal(t.kind, 'float', `gcc says floating, evaluator says ${got.value.type}`);
-          assert.equal(t.name, expected.kind === 'f' ? 'float' : expected.kind === 'd' ? 'double' : 'long double');
-          assert.equal(Number(got.value.value), Number(expected.value));
+          assert.equal(t.kind, 'float', `${compiler.command} says floating, evaluator says ${got.value.type}`);
+          assert.equal(t.name, expected.floating);
+          assert.equal(Number(got.value.value), expected.value);
         }
       });
     });
