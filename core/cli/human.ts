@@ -32,7 +32,7 @@ export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): 
   const line = (finding: Finding, file: CheckedFile) => {
     const where = locate(finding, file);
     counts[finding.severity]++;
-    return `${printable(displayPath(where.file, cwd))}:${where.line}: ${paint.severity(finding.severity, finding.severity)}: ${printable(finding.message)}`;
+    return `${printable(displayPath(where.file, cwd))}:${where.line}:${where.column}: ${paint.severity(finding.severity, finding.severity)}: ${printable(finding.message)}`;
   };
   for (const file of checked) {
     for (const finding of file.analysis.findings) lines.push(line(finding, file));

@@ -1,5 +1,6 @@
 // `--json`: the shape DESIGN.md promises, SI base units, 1-based lines.
 import type { BlockAnalysis, Finding } from '../types';
+import { displayPath } from './files';
 import { locate } from './locate';
 import type { CheckedFile } from './run';
 
@@ -14,14 +15,15 @@ interface JsonDiagnostic {
   file?: string;
 }
 
-function diagnostic(finding: Finding, file: CheckedFile): JsonDiagnostic {
+function diagnostic(finding: Finding, file: CheckedFile, cwd: string): JsonDiagnostic {
   const where = locate(finding, file);
   const out: JsonDiagnostic = { severity: finding.severity, code: finding.code, line: where.line, column: where.column, endLine: where.endLine, endColumn: where.endColumn, message: finding.message };
-  if (where.file !== file.file) out.file = where.file;
+  // A finding in a header names that file, relative to the working folder as `path` is.
+  if (where.file !== file.file) out.file = displayPath(where.file, cwd);
   return out;
 }
 
-function block(analysis: BlockAnalysis, file: CheckedFile) {
+function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string) {
   const out: Record<string, unknown> = {
     name: analysis.name,
     line: analysis.line,
@@ -32,15 +34,16 @@ function block(analysis: BlockAnalysis, file: CheckedFile) {
   if (analysis.spread) out.spread = analysis.spread;
   if (analysis.solved) out.solved = analysis.solved;
   if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => Object.assign({}, i));
-  out.diagnostics = analysis.findings.map((f) => diagnostic(f, file));
+  out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, cwd));
   return out;
 }
 
-export function jsonReport(checked: CheckedFile[]): string {
+export function jsonReport(checked: CheckedFile[], cwd: string): string {
   const files = checked.map((file) => ({
     path: file.display,
-    blocks: file.analysis.blocks.map((b) => block(b, file)),
-    diagnostics: file.analysis.findings.map((f) => diagnostic(f, file)),
+    blocks: file.analysis.blocks.map((b) => block(b, file, cwd)),
+    diagnostics: file.analysis.findings.map((f) => diagnostic(f, file, cwd)),
   }));
-  return JSON.stringify({ files }, null, 2) + '\n';
+  // `version` is the shape's version: it changes only when a field changes meaning or goes away.
+  return JSON.stringify({ version: 1, files }, null, 2) + '\n';
 }

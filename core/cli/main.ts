@@ -7,11 +7,13 @@ import { checkFiles, cliOptions, rootsFor } from './run';
 import { ansiPaint, humanReport, noPaint } from './human';
 import { jsonReport } from './json';
 import { sarifReport } from './sarif';
+import { githubReport } from './github';
+import { version } from '../project';
 import { waveformFor, defaultCycles, maxCycles } from '../present/waveform';
 import { renderWaveformSvg } from '../wave/svg';
 import type { DataModelName } from '../analyze';
 
-export const version = '0.1.0';
+export { version };
 
 export interface Io {
   out: (text: string) => void;
@@ -30,13 +32,14 @@ commands:
 run \`tickmark <command> --help\` for its options; \`tickmark --version\` prints the version
 `;
 
-const checkHelp = `usage: tickmark check [--json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] [--series S] [--max-size-kb N] PATH...
+const checkHelp = `usage: tickmark check [--format F | --json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] [--series S] [--max-size-kb N] PATH...
 
 Scans Markdown notes and C/C++ files (folders are walked) for timing blocks, computes each,
 and prints \`file:line: severity: message\` per finding with a one-line summary per block.
 
-  --json            print one JSON object (SI base units, 1-based lines)
-  --sarif           print SARIF 2.1.0 for code-scanning tools
+  --format F        human (default), json, sarif, or github (workflow annotations)
+  --json            the same as --format json: one JSON object (SI base units, 1-based lines)
+  --sarif           the same as --format sarif: SARIF 2.1.0 for code-scanning services
   --tolerance P     default tolerance of \`expect:\` in percent (default 1)
   --include DIR     extra folder for quoted #include (repeatable)
   --data-model M    integer widths for C constants: ilp32 (default), lp64, ip16
@@ -67,16 +70,23 @@ const analysisFlags = {
   'max-size-kb': { value: true },
 } as const;
 
+/** Flags every command takes. */
+const commonFlags = { help: { value: false }, h: { value: false }, version: { value: false } } as const;
+
+const outputFormats = ['human', 'json', 'sarif', 'github'];
+
+function printVersion(io: Io): number {
+  io.out(`${version}\n`);
+  return 0;
+}
+
 export function main(argv: string[], io: Io): number {
   const [command, ...rest] = argv;
   if (!command || command === '--help' || command === '-h' || command === 'help') {
     (command ? io.out : io.err)(usage);
     return command ? 0 : 2;
   }
-  if (command === '--version') {
-    io.out(version + '\n');
-    return 0;
-  }
+  if (command === '--version' || command === '-V') return printVersion(io);
   if (command === 'check') return check(rest, io);
   if (command === 'wave') return wave(rest, io);
   io.err(`tickmark: unknown command \`${command}\`\n\n${usage}`);
@@ -115,13 +125,17 @@ function isFolder(dir: string): boolean {
 }
 
 function check(argv: string[], io: Io): number {
-  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, ...analysisFlags, help: { value: false }, h: { value: false } });
+  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, format: { value: true }, ...analysisFlags, ...commonFlags });
   if (args.flags.has('help') || args.flags.has('h')) {
     io.out(checkHelp);
     return 0;
   }
+  if (args.flags.has('version')) return printVersion(io);
   const problems = [...args.problems];
-  if (args.flags.has('json') && args.flags.has('sarif')) problems.push('--json and --sarif cannot be combined');
+  const formats = [...(args.flags.get('format') ?? []), ...(args.flags.has('json') ? ['json'] : []), ...(args.flags.has('sarif') ? ['sarif'] : [])];
+  const format = formats[0] ?? 'human';
+  if (new Set(formats).size > 1) problems.push(`choose one output format, not ${[...new Set(formats)].join(' and ')}`);
+  if (!outputFormats.includes(format)) problems.push(`--format takes ${outputFormats.join(', ')}, not ${format}`);
   if (args.positional.length === 0) problems.push('no PATH given');
   const paths = args.positional.map((p) => path.resolve(io.cwd, p));
   const options = optionsFrom(args, io, paths);
@@ -136,8 +150,9 @@ function check(argv: string[], io: Io): number {
     return 2;
   }
   const checked = checkFiles(files, options, (file) => displayPath(file, io.cwd));
-  if (args.flags.has('json')) io.out(jsonReport(checked));
-  else if (args.flags.has('sarif')) io.out(sarifReport(checked, io.cwd, version));
+  if (format === 'json') io.out(jsonReport(checked, io.cwd));
+  else if (format === 'sarif') io.out(sarifReport(checked, io.cwd, version));
+  else if (format === 'github') io.out(githubReport(checked, io.cwd));
   else io.out(humanReport(checked, io.cwd, io.color ? ansiPaint : noPaint));
   const serious = (findings: { severity: string }[]) => findings.some((f) => f.severity !== 'info');
   const failing = checked.some((file) => serious(file.analysis.findings) || file.analysis.blocks.some((b) => serious(b.findings)));
@@ -145,11 +160,12 @@ function check(argv: string[], io: Io): number {
 }
 
 function wave(argv: string[], io: Io): number {
-  const args = parseArgs(argv, { block: { value: true }, cycles: { value: true }, out: { value: true }, ...analysisFlags, help: { value: false }, h: { value: false } });
+  const args = parseArgs(argv, { block: { value: true }, cycles: { value: true }, out: { value: true }, ...analysisFlags, ...commonFlags });
   if (args.flags.has('help') || args.flags.has('h')) {
     io.out(waveHelp);
     return 0;
   }
+  if (args.flags.has('version')) return printVersion(io);
   const problems = [...args.problems];
   const blockName = last(args, 'block');
   if (args.positional.length !== 1) problems.push('give exactly one PATH');

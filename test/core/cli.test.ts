@@ -35,7 +35,7 @@ describe('tickmark check', () => {
     assert.equal(run(['check', 'good.md'], dir).code, 0);
     const stale = run(['check', 'stale.md'], dir);
     assert.equal(stale.code, 1);
-    assert.match(stale.out, /^stale\.md:8: warning: tick: computes 976\.6 Hz, expect says 1 kHz \(default tolerance ±1 %\) \(−2\.34 %\); `reload: 249` gives 1 kHz$/m);
+    assert.match(stale.out, /^stale\.md:8:9: warning: tick: computes 976\.6 Hz, expect says 1 kHz \(default tolerance ±1 %\) \(−2\.34 %\); `reload: 249` gives 1 kHz$/m);
     assert.match(stale.out, /^stale\.md:3: tick \(timer\) check — 976\.6 Hz/m);
     assert.match(stale.out, /^1 block in 1 file: 0 errors, 1 warning, 0 notes$/m);
   });
@@ -66,7 +66,7 @@ describe('tickmark check', () => {
     assert.equal(run(['check', 'notes.txt'], dir).code, 2);
     const big = run(['check', '--max-size-kb', '2', 'big.md'], dir);
     assert.equal(big.code, 1);
-    assert.match(big.out, /big\.md:1: warning: file is larger than the size limit of 2 KB/);
+    assert.match(big.out, /big\.md:1:1: warning: file is larger than the size limit of 2 KB/);
   });
 
   it('applies --tolerance to claims without their own', () => {

@@ -1,0 +1,142 @@
+// Output for CI: SARIF validated against the official SARIF 2.1.0 JSON schema (OASIS, as shipped in npm by
+// @microsoft/jest-sarif; loaded, never copied) with ajv, plus the fields GitHub code scanning reads; GitHub
+// Actions workflow commands; the JSON report's version and relative paths.
+import { strict as assert } from 'assert';
+import * as fs from 'node:fs';
+import * as os from 'node:os';
+import * as path from 'node:path';
+import Ajv from 'ajv';
+import addFormats from 'ajv-formats';
+import { main } from '../../core/cli/main';
+import { codeTable } from '../../core/codes';
+
+const made: string[] = [];
+after(() => made.forEach((dir) => fs.rmSync(dir, { recursive: true, force: true })));
+
+function workspace(files: Record<string, string>): string {
+  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-ci-'));
+  made.push(dir);
+  for (const [name, text] of Object.entries(files)) {
+    fs.mkdirSync(path.dirname(path.join(dir, name)), { recursive: true });
+    fs.writeFileSync(path.join(dir, name), text);
+  }
+  return dir;
+}
+
+function run(argv: string[], cwd: string) {
+  let out = '';
+  let err = '';
+  const code = main(argv, { out: (t) => (out += t), err: (t) => (err += t), cwd, color: false });
+  return { code, out, err };
+}
+
+/** The SARIF 2.1.0 schema from npm. It is draft-04 JSON Schema; its only draft-04 keyword is the root `id`. */
+function sarifValidator() {
+  const file = require.resolve('@microsoft/jest-sarif/lib/schemas/sarif-2.1.0-rtm.5.json');
+  const { $schema: _draft, id, ...schema } = JSON.parse(fs.readFileSync(file, 'utf8'));
+  // Its language-tag pattern is not valid with the `u` flag; ajv then compiles patterns without it.
+  const ajv = new Ajv({ allErrors: true, strict: false, unicodeRegExp: false });
+  addFormats(ajv);
+  return ajv.compile({ ...schema, $id: id });
+}
+
+// 16 MHz / 64 / 256 = 976.6 Hz against a 1 kHz claim (timer law): a warning on line 8.
+const staleNote = ['# tick', '', '```timing tick', 'circuit: timer', 'clock: 16 MHz', 'prescaler: 64', 'reload: 255', 'expect: 1 kHz', '```', ''].join('\n');
+const files = {
+  'notes/stale.md': staleNote,
+  'notes/even.md': '```timing ring3\ncircuit: ring\nstages: 4\ntpd: 1n\n```\n',
+  'fw/tick.c': '#include "board.h"\n// @timing t\n// circuit: timer\n// clock: CLK\n// prescaler: 64\n// reload: 249\n// expect: 1 kHz\n',
+  // A quoted include that is not there: a note located in the header.
+  'fw/board.h': '#include "missing.h"\n#define CLK 16000000u\n',
+};
+
+describe('tickmark check for CI', () => {
+  it('writes SARIF that the official 2.1.0 schema accepts, with what code scanning reads', () => {
+    const dir = workspace(files);
+    const r = run(['check', '--format', 'sarif', '.'], dir);
+    assert.equal(r.code, 1, r.err);
+    const log = JSON.parse(r.out);
+    const validate = sarifValidator();
+    // The validator can say no: a run without its tool is not SARIF.
+    assert.equal(validate({ version: '2.1.0', runs: [{ results: [] }] }), false);
+    assert.ok(validate(log), JSON.stringify(validate.errors, null, 2));
+    const [sarifRun] = log.runs;
+    const driver = sarifRun.tool.driver;
+    assert.match(driver.informationUri, /^https:\/\//);
+    assert.match(driver.version, /^\d+\.\d+\.\d+/);
+    // Every code has its rule, each with descriptions, help in text and Markdown, and a link into docs/.
+    for (const { id: code } of codeTable) {
+      const rule = driver.rules.find((x: { id: string }) => x.id === code);
+      assert.ok(rule, code);
+      assert.ok(rule.shortDescription.text && rule.fullDescription.text && rule.help.text && rule.help.markdown, code);
+      assert.equal(rule.helpUri, `${driver.informationUri}/blob/main/docs/blocks.md#${code}`);
+    }
+    assert.ok(sarifRun.results.length >= 2);
+    const base = sarifRun.originalUriBaseIds['%SRCROOT%'].uri;
+    assert.match(base, /^file:\/\/.*\/$/);
+    for (const result of sarifRun.results) {
+      const location = result.locations[0].physicalLocation;
+      // Relative to the working folder, against %SRCROOT%, as code scanning maps results onto the repository.
+      assert.equal(location.artifactLocation.uriBaseId, '%SRCROOT%');
+      assert.doesNotMatch(location.artifactLocation.uri, /^(\/|file:)/);
+      assert.ok(fs.existsSync(new URL(location.artifactLocation.uri, base)), location.artifactLocation.uri);
+      assert.equal(driver.rules[result.ruleIndex].id, result.ruleId);
+      assert.match(result.partialFingerprints['tickmarkFinding/v1'], /^[0-9a-f]{32}:\d+$/);
+    }
+    const header = sarifRun.results.find((x: { ruleId: string }) => x.ruleId === 'c-include');
+    assert.equal(header.locations[0].physicalLocation.artifactLocation.uri, 'fw/board.h');
+  });
+
+  it('keeps a finding\'s fingerprint when lines are added above it', () => {
+    const dir = workspace({ 'stale.md': staleNote });
+    const before = JSON.parse(run(['check', '--sarif', 'stale.md'], dir).out).runs[0].results[0];
+    fs.writeFileSync(path.join(dir, 'stale.md'), 'A new paragraph.\n\n' + staleNote);
+    const after = JSON.parse(run(['check', '--sarif', 'stale.md'], dir).out).runs[0].results[0];
+    assert.equal(after.locations[0].physicalLocation.region.startLine, before.locations[0].physicalLocation.region.startLine + 2);
+    assert.deepEqual(after.partialFingerprints, before.partialFingerprints);
+  });
+
+  it('writes GitHub Actions workflow commands with file, line and column', () => {
+    const dir = workspace({ 'notes/stale.md': staleNote });
+    const r = run(['check', '--format', 'github', 'notes'], dir);
+    assert.equal(r.code, 1);
+    const [annotation, summary] = r.out.trimEnd().split('\n');
+    // GitHub Actions workflow commands: `::warning file=…,line=…,col=…::message`, `:` and `,` escaped in values.
+    assert.match(annotation, /^::warning file=notes\/stale\.md,line=8,col=9,endLine=8,endColumn=\d+,title=Tickmark expect-mismatch \(tick\)::tick: computes 976\.6 Hz/);
+    assert.match(summary, /^Tickmark: 1 block, 0 errors, 1 warning, 0 notes$/);
+  });
+
+  it('escapes newlines and percent signs in workflow commands', () => {
+    const dir = workspace({ 'a%b.md': '```timing x\ncircuit: nothing-like-this\n```\n' });
+    const r = run(['check', '--format', 'github', '.'], dir);
+    assert.match(r.out, /file=a%25b\.md,/);
+    for (const line of r.out.trimEnd().split('\n')) assert.doesNotMatch(line, /\r/);
+  });
+
+  it('writes JSON with its version and paths relative to the working folder, headers included', () => {
+    const dir = workspace(files);
+    const json = JSON.parse(run(['check', '--json', '.'], dir).out);
+    assert.equal(json.version, 1);
+    assert.deepEqual(json.files.map((f: { path: string }) => f.path).sort(), ['fw/tick.c', 'notes/even.md', 'notes/stale.md']);
+    const tick = json.files.find((f: { path: string }) => f.path === 'fw/tick.c');
+    const inHeader = [...tick.diagnostics, ...tick.blocks[0].diagnostics].find((d: { file?: string }) => d.file);
+    assert.equal(inHeader.file, 'fw/board.h');
+  });
+
+  it('takes one output format and names a wrong one', () => {
+    const dir = workspace({ 'notes/stale.md': staleNote });
+    assert.equal(run(['check', '--format', 'xml', 'notes'], dir).code, 2);
+    assert.equal(run(['check', '--format', 'json', '--sarif', 'notes'], dir).code, 2);
+    assert.equal(JSON.parse(run(['check', '--format', 'json', '--json', 'notes'], dir).out).version, 1);
+  });
+
+  it('prints the version from every command', () => {
+    const dir = workspace({});
+    const version = JSON.parse(fs.readFileSync(path.join(__dirname, '../../package.json'), 'utf8')).version;
+    for (const argv of [['--version'], ['check', '--version'], ['wave', '--version']]) {
+      const r = run(argv, dir);
+      assert.equal(r.code, 0);
+      assert.equal(r.out, `${version}\n`);
+    }
+  });
+});
