@@ -63,6 +63,12 @@ export function formatPercent(fraction: number, sig = 4): string {
   return `${formatNumber(fraction * 100, sig)} %`;
 }
 
+/** A baud rate as the trade reads it, a whole number in one spelling of the unit: 9615.4 → "9615.4 baud". */
+export function formatBaud(rate: number): string {
+  if (!Number.isFinite(rate)) return NOT_A_NUMBER;
+  return `${Math.round(rate * 10) / 10} baud`;
+}
+
 /** A difference as a signed percent: −0.023 → "−2.3 %", 0.05 → "+5 %", 0 → "0 %". */
 export function formatSignedPercent(fraction: number, sig = 3): string {
   if (!Number.isFinite(fraction)) return NOT_A_NUMBER;

@@ -36,7 +36,7 @@ export function checkClaims(analysis: BlockAnalysis, plan: Plan, claims: Claim[]
     findings.push({
       severity: 'warning',
       code: Code.expectMismatch,
-      message: `${analysis.name}: computes ${written}, expect says ${claim.text}${tolerance} (${formatSignedPercent(difference)})${hint}`,
+      message: `${analysis.name}: computes ${written}, expect says ${claim.text}${tolerance} (${formatSignedPercent(difference)} from the claim)${hint}`,
       span: claim.span,
       fixes,
     });

@@ -47,7 +47,7 @@ export function solveUnknowns(
       findings.push({
         severity: inBand ? 'info' : 'warning',
         code: inBand ? Code.solved : Code.solveInexact,
-        message: found.error === 0 ? `\`${u.key}\` = ${value} meets ${target.text} exactly${what}` : `closest \`${u.key}\` = ${value}${what}, ${formatSignedPercent(found.error)} from ${target.text}${inBand ? '' : ' — outside the target band'}`,
+        message: found.error === 0 ? `\`${u.key}\` = ${value} meets ${target.text} exactly${what}` : `closest \`${u.key}\` = ${value}${what}, ${formatSignedPercent(found.error)} from the target ${target.text}${inBand ? '' : ' — outside the target band'}`,
         span: u.span,
         fixes: [{ title: `Fill in ${u.key}: ${value}`, edits: [{ uri: context.uri, span: u.span, newText: String(value) }] }],
       });
@@ -83,7 +83,7 @@ export function solveUnknowns(
     message:
       `\`${first.key}\`: exact value ${formatQuantity(outcome.exact, dim)}` +
       (snapped.series ? `; nearest ${snapped.series} part ${text}` : '') +
-      (achieved !== undefined ? ` gives ${formatQuantity(achieved, resultDim(plan, target.measure))} (${formatSignedPercent(error!)})` : '') +
+      (achieved !== undefined ? ` gives ${formatQuantity(achieved, resultDim(plan, target.measure))} (${formatSignedPercent(error!)} from the target)` : '') +
       (inBand ? '' : ` — outside ${target.text}${target.toleranceGiven ? '' : ` (default ±${Math.round(target.tolerance.plus * 1e6) / 1e4} %)`}`),
     span: first.span,
     fixes: [{ title: `Fill in ${first.key}: ${text}`, edits: [{ uri: context.uri, span: first.span, newText: text }] }],

@@ -31,7 +31,7 @@ export const ne555Astable: CircuitModel = {
   assumptions: [
     'Ideal 555: threshold at the control voltage, trigger at half of it, no pin currents, output at supply when high and 0 V when low.',
     'The discharge transistor is a short to 0 V while on; with `diode: yes` an ideal diode (no forward drop) bypasses RB while charging.',
-    'startup: the capacitor starts at 0 V with the output high; it is the time until the capacitor first reaches the control voltage (the first output edge). It is longer than a steady high time because the charge starts from 0 V, not from control/2.',
+    'first-edge: the capacitor starts at 0 V with the output high; it is the time until the capacitor first reaches the control voltage (the first output edge). It is longer than a steady high time because the charge starts from 0 V, not from control/2.',
   ],
   params: [
     voltage('supply', 'supply voltage VCC', 'Supply of the 555.'),
@@ -70,8 +70,8 @@ export const ne555Astable: CircuitModel = {
         source: datasheet,
       },
       {
-        formula: `startup = ${charge}·C·ln(VCC/(VCC − Vctl))`,
-        substituted: `startup = ${chargeNumbers} · ${eng(c, 'F')} · ln(${eng(supply, 'V')}/(${eng(supply, 'V')} − ${eng(control, 'V')})) = ${eng(results.startup, 's')}`,
+        formula: `first edge = ${charge}·C·ln(VCC/(VCC − Vctl))`,
+        substituted: `first edge = ${chargeNumbers} · ${eng(c, 'F')} · ln(${eng(supply, 'V')}/(${eng(supply, 'V')} − ${eng(control, 'V')})) = ${eng(results['first-edge'], 's')}`,
         source: 'standard RC charging law from 0 V, common practice',
       },
       { formula: 'f = 1/(t_high + t_low)', substituted: `f = 1/${eng(results.period, 's')} = ${eng(results.frequency, 'Hz')}`, source: datasheet },

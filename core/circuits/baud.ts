@@ -3,6 +3,7 @@
 // (AVR UBRR + 1, the 16550 divisor latch); give `divisor` for fractional baud-rate generators.
 import type { CircuitModel, ModelInput, ModelIssue, WorkingLine } from './model';
 import { Code } from '../codes';
+import { formatBaud } from '../format';
 import { checkPositive, eng, finiteOnly, percent, quantity, hasErrors } from './common';
 
 const source = 'UART baud-rate generator arithmetic (rate = clock / (oversampling · divisor)), common practice';
@@ -76,17 +77,17 @@ export const baud: CircuitModel = {
     if (!given) {
       lines.push({
         formula: 'divisor = round(clock / (oversampling · baud))',
-        substituted: `divisor = round(${eng(clock, 'Hz')} / (${oversampling} · ${eng(wanted, 'Bd')})) = round(${(clock / (oversampling * wanted)).toPrecision(6)}) = ${results.divisor}`,
+        substituted: `divisor = round(${eng(clock, 'Hz')} / (${oversampling} · ${formatBaud(wanted)})) = round(${(clock / (oversampling * wanted)).toPrecision(6)}) = ${results.divisor}`,
         source,
       });
     }
     lines.push(
       {
         formula: 'rate = clock / (oversampling · divisor)',
-        substituted: `rate = ${eng(clock, 'Hz')} / (${oversampling} · ${results.divisor}) = ${eng(results.baud, 'Bd')}`,
+        substituted: `rate = ${eng(clock, 'Hz')} / (${oversampling} · ${results.divisor}) = ${formatBaud(results.baud)}`,
         source,
       },
-      { formula: 'error = rate / baud − 1', substituted: `error = ${eng(results.baud, 'Bd')} / ${eng(wanted, 'Bd')} − 1 = ${percent(results.error)}`, source },
+      { formula: 'error = rate / baud − 1', substituted: `error = ${formatBaud(results.baud)} / ${formatBaud(wanted)} − 1 = ${percent(results.error)}`, source },
     );
     return lines;
   },

@@ -25,7 +25,7 @@ export const oscillatorResults: readonly ResultSpec[] = [
   { key: 'period', label: 'period', dim: 's' },
   { key: 'frequency', label: 'frequency', dim: 'Hz' },
   { key: 'duty', label: 'duty (high / period)', dim: '', percent: true },
-  { key: 'startup', label: 'startup (first transition from a discharged capacitor)', dim: 's' },
+  { key: 'first-edge', label: 'first output edge, from a discharged capacitor at power-up', dim: 's' },
 ];
 
 export const oscillatorHeadline = ['frequency', 'period', 'duty'] as const;

@@ -32,7 +32,7 @@ export const comparatorRc: CircuitModel = {
     'Ideal comparator: infinite gain, no input current, no delay; the output sits at exactly voh or vol.',
     'The divider is not loaded and the output resistance is part of r (and negligible against r1 + r2).',
     'Thresholds: V± = vref + (voh or vol − vref)·r1/(r1 + r2).',
-    'startup: the capacitor starts at 0 V; with 0 V below the upper threshold the output is assumed high (between the thresholds the latch state is unknown); it is the time to the first output edge.',
+    'first-edge: the capacitor starts at 0 V; with 0 V below the upper threshold the output is assumed high (between the thresholds the latch state is unknown); it is the time to the first output edge.',
   ],
   params: [
     voltage('voh', 'output high level', 'Comparator output voltage when high.'),

@@ -77,8 +77,8 @@ export function hysteresisWorking(h: Hysteresis, results: Readonly<Record<string
       source,
     },
     {
-      formula: 'startup = τ·ln((Vfinal − 0)/(Vfinal − Vthreshold)), from a discharged capacitor',
-      substituted: `startup = ${eng(h.tau, 's')} · ln(${term(osc.startup.vInf, 'V')}/(${term(osc.startup.vInf, 'V')} − ${term(osc.highIs === 'second' ? h.upper : h.lower, 'V')}))${delay} = ${eng(results.startup, 's')}`,
+      formula: 'first edge = τ·ln((Vfinal − 0)/(Vfinal − Vthreshold)), from a discharged capacitor',
+      substituted: `first edge = ${eng(h.tau, 's')} · ln(${term(osc.startup.vInf, 'V')}/(${term(osc.startup.vInf, 'V')} − ${term(osc.highIs === 'second' ? h.upper : h.lower, 'V')}))${delay} = ${eng(results['first-edge'], 's')}`,
       source,
     },
     { formula: 'f = 1/(t_high + t_low)', substituted: `f = 1/${eng(results.period, 's')} = ${eng(results.frequency, 'Hz')}`, source: 'definition of frequency' },

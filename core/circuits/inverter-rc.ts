@@ -26,7 +26,7 @@ export const inverterRc: CircuitModel = {
     'Ideal inverters switching at `threshold` with rail-to-rail outputs (supply and 0 V) and no delay.',
     "A series resistor keeps the first inverter's protection diodes out, so the timing node swings to threshold ± supply unclamped; no input current.",
     'output is the second inverter; the `capacitor` trace is the timing node (the end of C at the first input).',
-    'startup: the capacitor starts discharged with the timing node at 0 V and the output low; it is the time for the node to charge through R to the threshold (the first output edge).',
+    'first-edge: the capacitor starts discharged with the timing node at 0 V and the output low; it is the time for the node to charge through R to the threshold (the first output edge).',
   ],
   params: [
     voltage('supply', 'supply voltage', 'Supply of both inverters.'),
@@ -61,7 +61,7 @@ export const inverterRc: CircuitModel = {
         source,
       },
       { formula: 't_high = R·C·ln((V + Vth)/Vth)', substituted: `t_high = ${eng(results.high, 's')}`, source },
-      { formula: 'startup = R·C·ln(V/(V − Vth))', substituted: `startup = ${rc} · ln(${eng(supply, 'V')}/(${eng(supply, 'V')} − ${eng(threshold, 'V')})) = ${eng(results.startup, 's')}`, source },
+      { formula: 'first edge = R·C·ln(V/(V − Vth))', substituted: `first edge = ${rc} · ln(${eng(supply, 'V')}/(${eng(supply, 'V')} − ${eng(threshold, 'V')})) = ${eng(results['first-edge'], 's')}`, source },
       { formula: 'f = 1/T', substituted: `f = ${eng(results.frequency, 'Hz')}`, source: 'definition of frequency' },
     ];
   },

@@ -65,7 +65,7 @@ export const rcDelay: CircuitModel = {
       { v0: from, vInf: toward, tau: r * c, duration: time, output: 0 },
       { v0: input.values.to, vInf: toward, tau: r * c, duration: tail, output: 0 },
     ]);
-    return { traces: [capacitorTrace], levels: [{ label: 'to', value: input.values.to }], duration: time + tail };
+    return { traces: [capacitorTrace], levels: [{ label: 'end level', value: input.values.to }], duration: time + tail };
   },
 
   cautions: (input) => [...voltageCautions(input, ['from', 'to', 'toward', 'supply']), ...safetyCautions(input)],

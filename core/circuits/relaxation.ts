@@ -3,7 +3,7 @@ import type { Waveform } from './model';
 import { clampCycles, sampleRcSegments, type RcSegment } from './segments';
 
 /**
- * A relaxation oscillator as segments: `startup` runs from the discharged capacitor to the first output
+ * A relaxation oscillator as segments: `startup` (the `first-edge` result) runs from the discharged capacitor to the first output
  * transition; then `first` and `second` alternate for ever. `highIs` names the half with the output high.
  */
 export interface Relaxation {
@@ -17,7 +17,7 @@ export function relaxationResults(osc: Relaxation): Record<string, number> {
   const high = osc.highIs === 'first' ? osc.first.duration : osc.second.duration;
   const low = osc.highIs === 'first' ? osc.second.duration : osc.first.duration;
   const period = high + low;
-  return { high, low, period, frequency: 1 / period, duty: high / period, startup: osc.startup.duration };
+  return { high, low, period, frequency: 1 / period, duty: high / period, 'first-edge': osc.startup.duration };
 }
 
 export function relaxationWaveform(

@@ -19,7 +19,7 @@ export const schmittRc: CircuitModel = {
     'Ideal inverting Schmitt trigger: no input current, output at exactly voh or vol (rail-to-rail, supply and 0 V, unless voh/vol are given).',
     'The output resistance is part of r; the thresholds do not move with load or temperature.',
     'tpd delays each output edge; meanwhile the capacitor keeps running past the threshold, and the next half starts from that overshoot.',
-    'startup: the capacitor starts at 0 V with the output high (0 V below VT+); it is the time to the first output edge, VT+ reached plus tpd.',
+    'first-edge: the capacitor starts at 0 V with the output high (0 V below VT+); it is the time to the first output edge, VT+ reached plus tpd.',
   ],
   params: [
     voltage('supply', 'supply voltage', 'Supply of the Schmitt-trigger gate.'),

@@ -24,8 +24,12 @@ export function clampCycles(cycles: number): number {
   return Math.min(maxCycles, Math.max(1, Math.round(cycles)));
 }
 
-/** Capacitor and output traces of consecutive segments, with exact corners where they meet. */
-export function sampleRcSegments(segments: readonly RcSegment[], capacitorName = 'capacitor'): Trace[] {
+/**
+ * The timing node and output traces of consecutive segments, with exact corners where they meet. The node is
+ * where C meets the switching input: the capacitor's voltage in most circuits, not in inverter-rc (it swings
+ * beyond the supply there, docs/blocks.md).
+ */
+export function sampleRcSegments(segments: readonly RcSegment[]): Trace[] {
   const capacitor: Array<[number, number]> = [];
   const output: Array<[number, number]> = [];
   let t0 = 0;
@@ -38,7 +42,7 @@ export function sampleRcSegments(segments: readonly RcSegment[], capacitorName =
     t0 += segment.duration;
   }
   return [
-    { name: capacitorName, dim: 'V', points: finitePoints(capacitor) },
+    { name: 'timing node', dim: 'V', points: finitePoints(capacitor) },
     { name: 'output', dim: 'V', points: finitePoints(output) },
   ];
 }

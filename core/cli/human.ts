@@ -25,6 +25,9 @@ export function printable(text: string): string {
   return text.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, (ch) => `\\u${ch.charCodeAt(0).toString(16).padStart(4, '0')}`);
 }
 
+/** Severities as SARIF names its levels (`info` is a `note`), so the log, the summary and code scanning agree. */
+const severityWord: Record<Finding['severity'], string> = { error: 'error', warning: 'warning', info: 'note' };
+
 export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): string {
   const lines: string[] = [];
   let blocks = 0;
@@ -32,14 +35,15 @@ export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): 
   const line = (finding: Finding, file: CheckedFile) => {
     const where = locate(finding, file);
     counts[finding.severity]++;
-    return `${printable(displayPath(where.file, cwd))}:${where.line}:${where.column}: ${paint.severity(finding.severity, finding.severity)}: ${printable(finding.message)}`;
+    return `${printable(displayPath(where.file, cwd))}:${where.line}:${where.column}: ${paint.severity(finding.severity, severityWord[finding.severity])}: ${printable(finding.message)}`;
   };
   for (const file of checked) {
     for (const finding of file.analysis.findings) lines.push(line(finding, file));
     for (const block of file.analysis.blocks) {
       blocks++;
+      // The block's status is the worst severity among its findings, in the words the finding lines use.
       const worst = block.findings.some((f) => f.severity === 'error') ? 'error' : block.findings.some((f) => f.severity === 'warning') ? 'warning' : 'ok';
-      const mark = worst === 'ok' ? paint.dim('ok') : paint.severity(worst, worst === 'error' ? 'failed' : 'check');
+      const mark = worst === 'ok' ? paint.dim('ok') : paint.severity(worst, worst);
       lines.push(`${printable(file.display)}:${block.line}: ${paint.bold(printable(block.name))} (${printable(block.circuit ?? 'no circuit')}) ${mark} — ${printable(headline(block))}`);
       for (const finding of block.findings) lines.push(line(finding, file));
     }

@@ -23,15 +23,20 @@ function diagnostic(finding: Finding, file: CheckedFile, cwd: string): JsonDiagn
   return out;
 }
 
+/** `first-edge` was called `startup`: the old key stays beside it in JSON for one more version (README, Migration). */
+function withStartup<T>(record: Record<string, T>): Record<string, T> {
+  return 'first-edge' in record ? { ...record, startup: record['first-edge'] } : record;
+}
+
 function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string) {
   const out: Record<string, unknown> = {
     name: analysis.name,
     line: analysis.line,
     circuit: analysis.circuit ?? null,
     params: Object.assign({}, analysis.params, analysis.choices),
-    values: analysis.values,
+    values: withStartup(analysis.values),
   };
-  if (analysis.spread) out.spread = analysis.spread;
+  if (analysis.spread) out.spread = withStartup(analysis.spread);
   if (analysis.solved) out.solved = analysis.solved;
   if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => Object.assign({}, i));
   out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, cwd));

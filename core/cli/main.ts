@@ -49,10 +49,10 @@ and prints \`file:line: severity: message\` per finding with a one-line summary 
 exit status: 0 nothing wrong, 1 a block has a warning or error, 2 usage error or unreadable path
 `;
 
-const waveHelp = `usage: tickmark wave PATH --block NAME [--cycles N] [--out FILE.svg] [--include DIR]... [--data-model M]
+const waveHelp = `usage: tickmark wave PATH --block NAME [--cycles N] [--out FILE.svg] [--include DIR]... [--data-model M] [--series S] [--tolerance P] [--max-size-kb N]
 
-Writes the waveform of block NAME in file PATH as SVG: capacitor voltage and output
-from startup over N cycles (default ${defaultCycles}, at most ${maxCycles}), thresholds labelled.
+Writes the waveform of block NAME in file PATH as SVG: the timing node's voltage and the output
+from power-up (a discharged capacitor) over N cycles (default ${defaultCycles}, at most ${maxCycles}), thresholds labelled.
 Without --out the SVG goes to standard output. --include, --data-model, --series, --tolerance and
 --max-size-kb work as for \`tickmark check\`, so a block draws with the constants it checks with.
 
@@ -159,8 +159,11 @@ function check(argv: string[], io: Io): number {
   return failing ? 1 : 0;
 }
 
+/** The options `wave` takes; its usage line lists each (test/core/cli.test.ts). */
+export const waveFlags = { block: { value: true }, cycles: { value: true }, out: { value: true }, ...analysisFlags } as const;
+
 function wave(argv: string[], io: Io): number {
-  const args = parseArgs(argv, { block: { value: true }, cycles: { value: true }, out: { value: true }, ...analysisFlags, ...commonFlags });
+  const args = parseArgs(argv, { ...waveFlags, ...commonFlags });
   if (args.flags.has('help') || args.flags.has('h')) {
     io.out(waveHelp);
     return 0;

@@ -62,7 +62,7 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
     const dim = paramDim(model, key);
     const show = (value: number) => (dim ? formatQuantity(value, dim) : formatConstant(value));
     const exact = part.exact !== undefined ? `exact ${show(part.exact)}; ` : '';
-    const error = part.error !== undefined ? ` (${part.error === 0 ? 'exact' : formatSignedPercent(part.error) + ' from target'})` : '';
+    const error = part.error !== undefined ? ` (${part.error === 0 ? 'exact' : formatSignedPercent(part.error) + ' from the target'})` : '';
     out.push(`**solved** ${code(key)}: ${exact}use ${show(part.value)}${part.series ? ` (${part.series})` : ''}${error}`);
   }
   if (analysis.identifiers.length) {

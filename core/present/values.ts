@@ -2,14 +2,14 @@
 import type { BlockAnalysis } from '../types';
 import type { CircuitModel } from '../circuits/model';
 import { circuitById } from '../circuits/registry';
-import { formatNumber, formatPercent, formatQuantity, formatSignedPercent } from '../format';
+import { formatBaud, formatNumber, formatPercent, formatQuantity, formatSignedPercent } from '../format';
 
 export function formatResult(model: CircuitModel, key: string, value: number): string {
   const spec = model.results.find((r) => r.key === key);
   // An error is a signed deviation; a duty is a plain share.
   if (spec?.percent) return key === 'error' ? formatSignedPercent(value) : formatPercent(value);
   // Baud rates are read as whole numbers in the trade (9600, 115200), not with prefixes.
-  if (key === 'baud') return `${Math.round(value * 10) / 10} baud`;
+  if (key === 'baud') return formatBaud(value);
   // Below 1 Hz a prefix misleads: "500 mHz" is read as MHz at a glance. Long times stay in seconds, not ks.
   if (spec?.dim === 'Hz' && Math.abs(value) < 1 && value !== 0) return `${formatNumber(value, 4)} Hz`;
   if (spec?.dim === 's' && Math.abs(value) >= 1000) return `${formatNumber(value, 4)} s`;
@@ -30,7 +30,8 @@ export function resultLabel(model: CircuitModel, key: string): string {
 /** The code lens line: headline numbers, the worst-case band of the first, or the block's first error. */
 export function headline(analysis: BlockAnalysis): string {
   const error = analysis.findings.find((f) => f.severity === 'error');
-  if (error) return `⚠ ${error.message}`;
+  // The same mark as the hover and the preview give an error.
+  if (error) return `⛔ ${error.message}`;
   const model = analysis.circuit ? circuitById(analysis.circuit) : undefined;
   if (!model) return analysis.name;
   const parts: string[] = [];

@@ -20,7 +20,7 @@ describe('analysis of one block', () => {
     const block = noteBlock(['circuit: timer', 'clock: 16 MHz', 'prescaler: 64', 'reload: 255', 'expect: 1 kHz ±0.5%']);
     const warning = block.findings.find((f) => f.code === 'expect-mismatch');
     assert.ok(warning, 'mismatch reported');
-    assert.equal(warning.message, 'probe: computes 976.6 Hz, expect says 1 kHz ±0.5% (−2.34 %); `reload: 249` gives 1 kHz');
+    assert.equal(warning.message, 'probe: computes 976.6 Hz, expect says 1 kHz ±0.5% (−2.34 % from the claim); `reload: 249` gives 1 kHz');
     const titles = (warning.fixes ?? []).map((f) => f.title);
     assert.deepEqual(titles, ['Set reload: 249 (meets 1 kHz ±0.5%)', 'Update the claim to 976.6 Hz']);
   });

@@ -51,7 +51,7 @@ describe('RC segment law', () => {
 describe('waveforms', () => {
   it('schmitt-rc starts discharged, charges to VT+, then swings between the thresholds', () => {
     const { wave: w, results } = wave('schmitt-rc', { values: { supply: 3.3, 'vt+': 2.0, 'vt-': 1.1, r: 47e3, c: 100e-9 } });
-    const cap = trace(w.traces, 'capacitor');
+    const cap = trace(w.traces, 'timing node');
     const out = trace(w.traces, 'output');
     assert.deepEqual(cap.points[0], [0, 0]);
     assert.equal(out.points[0][1], 3.3);
@@ -78,7 +78,7 @@ describe('waveforms', () => {
 
   it('with tpd the capacitor overshoots the threshold before the output falls', () => {
     const { wave: w } = wave('schmitt-rc', { values: { supply: 5, 'vt+': 3, 'vt-': 2, r: 1e3, c: 1e-9, tpd: 100e-9 } });
-    const peak = Math.max(...trace(w.traces, 'capacitor').points.map((p) => p[1]));
+    const peak = Math.max(...trace(w.traces, 'timing node').points.map((p) => p[1]));
     // RC charging law: 100 ns past VT+ = 3 V toward 5 V with τ = 1 µs, v = 5 + (3 − 5)·e^(−0.1).
     assert.ok(Math.abs(peak - (5 + (3 - 5) * Math.exp(-0.1))) < 1e-9, String(peak));
   });
@@ -92,7 +92,7 @@ describe('waveforms', () => {
 
   it('inverter-rc timing node jumps by a full supply at each edge', () => {
     const { wave: w } = wave('inverter-rc', { values: { supply: 5, r: 10e3, c: 1e-9 } }, 2);
-    const node = trace(w.traces, 'capacitor').points;
+    const node = trace(w.traces, 'timing node').points;
     const values = node.map((p) => p[1]);
     // From the DESIGN.md note: the node swings to threshold ± supply (2.5 ± 5 V).
     assert.ok(Math.abs(Math.max(...values) - 7.5) < 1e-9);
@@ -112,14 +112,14 @@ describe('waveforms', () => {
 
   it('rc-delay draws one charge curve through its `to` level', () => {
     const { wave: w, results } = wave('rc-delay', { values: { r: 10e3, c: 1e-6, to: 2, supply: 3.3 } });
-    const cap = trace(w.traces, 'capacitor').points;
+    const cap = trace(w.traces, 'timing node').points;
     assert.deepEqual(cap[0], [0, 0]);
     // RC charging law: 0 → 2 V toward 3.3 V with τ = 10 ms takes τ·ln(3.3/1.3).
     const time = 10e-3 * Math.log(3.3 / 1.3);
     assert.ok(Math.abs(results.time - time) < 1e-12);
     const atTime = cap.find((p) => Math.abs(p[0] - time) < 1e-12);
     assert.ok(atTime && Math.abs(atTime[1] - 2) < 1e-9);
-    assert.deepEqual(w.levels, [{ label: 'to', value: 2 }]);
+    assert.deepEqual(w.levels, [{ label: 'end level', value: 2 }]);
   });
 
   it('ring draws a square wave of the computed period', () => {
@@ -132,7 +132,7 @@ describe('waveforms', () => {
 
   it('asks for absurd cycle counts without hanging', () => {
     const { wave: w } = wave('schmitt-rc', { values: { supply: 3.3, 'vt+': 2.0, 'vt-': 1.1, r: 47e3, c: 100e-9 } }, 1e12);
-    assert.ok(trace(w.traces, 'capacitor').points.length < 100_000);
+    assert.ok(trace(w.traces, 'timing node').points.length < 100_000);
     const { wave: none } = wave('schmitt-rc', { values: { supply: 3.3, 'vt+': 2.0, 'vt-': 1.1, r: 47e3, c: 100e-9 } }, Number.NaN);
     assert.ok(none.duration > 0);
   });

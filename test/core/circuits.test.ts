@@ -6,11 +6,11 @@ import type { CircuitModel, QuantityParam } from '../../core/circuits/model';
 
 // DESIGN.md, table "Circuits": keys and results per circuit.
 const contract: Record<string, { keys: string[]; results: string[] }> = {
-  'schmitt-rc': { keys: ['supply', 'vt+', 'vt-', 'r', 'c', 'voh', 'vol', 'tpd'], results: ['high', 'low', 'period', 'frequency', 'duty', 'startup'] },
-  'comparator-rc': { keys: ['voh', 'vol', 'vref', 'r1', 'r2', 'r', 'c'], results: ['high', 'low', 'period', 'frequency', 'duty', 'startup'] },
-  '555-astable': { keys: ['supply', 'ra', 'rb', 'c', 'control', 'diode'], results: ['high', 'low', 'period', 'frequency', 'duty', 'startup'] },
+  'schmitt-rc': { keys: ['supply', 'vt+', 'vt-', 'r', 'c', 'voh', 'vol', 'tpd'], results: ['high', 'low', 'period', 'frequency', 'duty', 'first-edge'] },
+  'comparator-rc': { keys: ['voh', 'vol', 'vref', 'r1', 'r2', 'r', 'c'], results: ['high', 'low', 'period', 'frequency', 'duty', 'first-edge'] },
+  '555-astable': { keys: ['supply', 'ra', 'rb', 'c', 'control', 'diode'], results: ['high', 'low', 'period', 'frequency', 'duty', 'first-edge'] },
   '555-monostable': { keys: ['supply', 'r', 'c', 'control'], results: ['width'] },
-  'inverter-rc': { keys: ['supply', 'threshold', 'r', 'c'], results: ['high', 'low', 'period', 'frequency', 'duty', 'startup'] },
+  'inverter-rc': { keys: ['supply', 'threshold', 'r', 'c'], results: ['high', 'low', 'period', 'frequency', 'duty', 'first-edge'] },
   ring: { keys: ['stages', 'tpd'], results: ['period', 'frequency'] },
   'rc-delay': { keys: ['r', 'c', 'from', 'to', 'toward'], results: ['time'] },
   timer: { keys: ['clock', 'prescaler', 'reload', 'mode', 'compare', 'bits', 'prescalers'], results: ['period', 'frequency', 'duty', 'counts'] },

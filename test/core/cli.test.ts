@@ -3,7 +3,7 @@ import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
 import { spawnSync } from 'node:child_process';
-import { main } from '../../core/cli/main';
+import { main, waveFlags } from '../../core/cli/main';
 
 const made: string[] = [];
 after(() => made.forEach((dir) => fs.rmSync(dir, { recursive: true, force: true })));
@@ -35,9 +35,32 @@ describe('tickmark check', () => {
     assert.equal(run(['check', 'good.md'], dir).code, 0);
     const stale = run(['check', 'stale.md'], dir);
     assert.equal(stale.code, 1);
-    assert.match(stale.out, /^stale\.md:8:9: warning: tick: computes 976\.6 Hz, expect says 1 kHz \(default tolerance ±1 %\) \(−2\.34 %\); `reload: 249` gives 1 kHz$/m);
-    assert.match(stale.out, /^stale\.md:3: tick \(timer\) check — 976\.6 Hz/m);
+    assert.match(stale.out, /^stale\.md:8:9: warning: tick: computes 976\.6 Hz, expect says 1 kHz \(default tolerance ±1 %\) \(−2\.34 % from the claim\); `reload: 249` gives 1 kHz$/m);
+    assert.match(stale.out, /^stale\.md:3: tick \(timer\) warning — 976\.6 Hz/m);
     assert.match(stale.out, /^1 block in 1 file: 0 errors, 1 warning, 0 notes$/m);
+  });
+
+  it('names a block\'s status by its worst severity and prints info findings as notes, as SARIF does', () => {
+    const broken = goodNote.replace('prescaler: 64', 'prescaler: 0');
+    // An E24 resistor solved for 1 kHz: a note, not a warning (the block is fine).
+    const solved = ['```timing blink', 'circuit: schmitt-rc', 'supply: 5 V', 'vt+: 3 V', 'vt-: 2 V', 'r: ?', 'c: 100n', 'target: 1 kHz ±10%', '```', ''].join('\n');
+    const dir = workspace({ 'broken.md': broken, 'solved.md': solved });
+    const r = run(['check', 'broken.md', 'solved.md'], dir);
+    assert.match(r.out, /^broken\.md:3: tick \(timer\) error — ⛔ /m);
+    assert.match(r.out, /^broken\.md:6:\d+: error: `prescaler` must be at least 1/m);
+    assert.match(r.out, /^solved\.md:1: blink \(schmitt-rc\) ok — /m);
+    assert.match(r.out, /^solved\.md:6:\d+: note: `r`: exact value .* \(\S+ % from the target\)$/m);
+    assert.doesNotMatch(r.out, /\b(info|check|failed)\b/);
+    assert.match(r.out, /: 1 error, 0 warnings, 1 note$/m);
+  });
+
+  it('keeps `startup` beside `first-edge` in JSON for one more version', () => {
+    const dir = workspace({ 'n.md': ['```timing blink', 'circuit: schmitt-rc', 'supply: 5 V', 'vt+: 3 V', 'vt-: 2 V', 'r: 10k ±1%', 'c: 1u', '```', ''].join('\n') });
+    const block = JSON.parse(run(['check', '--json', 'n.md'], dir).out).files[0].blocks[0];
+    // RC charging law (common practice): from 0 V toward 5 V, the first edge at 3 V comes after RC·ln(5/2).
+    assert.ok(Math.abs(block.values['first-edge'] / (10e3 * 1e-6 * Math.log(5 / 2)) - 1) < 1e-9);
+    assert.equal(block.values.startup, block.values['first-edge']);
+    assert.deepEqual(block.spread.startup, block.spread['first-edge']);
   });
 
   it('exits 2 for usage errors and unreadable paths', () => {
@@ -151,6 +174,11 @@ describe('tickmark wave', () => {
     assert.match(svg, /^<svg[^>]+xmlns="http:\/\/www\.w3\.org\/2000\/svg"/);
     assert.match(svg, /VT\+/);
     assert.doesNotMatch(svg, /<script/);
+  });
+
+  it('lists every option it takes in its usage line', () => {
+    const usage = run(['wave', '--help'], os.tmpdir()).out.split('\n')[0];
+    for (const flag of Object.keys(waveFlags)) assert.ok(usage.includes(`[--${flag}`) || usage.includes(` --${flag} `), `--${flag} missing from: ${usage}`);
   });
 
   it('names the blocks there are when the name is wrong', () => {

@@ -21,7 +21,7 @@ describe('how results read', () => {
 
   it('shows a block\'s first error on the lens instead of numbers', () => {
     const block = noteBlock(['circuit: ring', 'stages: 4', 'tpd: 1n']);
-    assert.match(headline(block), /^⚠ `stages`/);
+    assert.match(headline(block), /^⛔ `stages`/);
   });
 
   it('gives the working with its source and the firmware locations in the hover', () => {

@@ -39,18 +39,18 @@ function block(name: string): JsonBlock {
   return found;
 }
 
-/** High, low and startup of an inverting hysteresis oscillator by the RC charging law, common practice. */
+/** High, low and first edge of an inverting hysteresis oscillator by the RC charging law, common practice. */
 function hysteresisTimes(tau: number, upper: number, lower: number, voh: number, vol: number) {
   const high = tau * Math.log((voh - lower) / (voh - upper));
   const low = tau * Math.log((upper - vol) / (lower - vol));
-  return { high, low, frequency: 1 / (high + low), duty: high / (high + low), startup: tau * Math.log(voh / (voh - upper)) };
+  return { high, low, frequency: 1 / (high + low), duty: high / (high + low), 'first-edge': tau * Math.log(voh / (voh - upper)) };
 }
 
 function ne555Times(v: Record<string, number>) {
   // NE555 datasheet SLFS022: charge through RA + RB toward VCC between control/2 and control, discharge through RB.
   const high = (v.ra + v.rb) * v.c * Math.log((v.supply - v.control / 2) / (v.supply - v.control));
   const low = v.rb * v.c * Math.LN2;
-  return { high, low, frequency: 1 / (high + low), duty: high / (high + low), startup: (v.ra + v.rb) * v.c * Math.log(v.supply / (v.supply - v.control)) };
+  return { high, low, frequency: 1 / (high + low), duty: high / (high + low), 'first-edge': (v.ra + v.rb) * v.c * Math.log(v.supply / (v.supply - v.control)) };
 }
 
 describe('end to end: timing blocks through tickmark check --json', function () {
@@ -70,7 +70,7 @@ describe('end to end: timing blocks through tickmark check --json', function () 
     assert.equal(b.params.voh, 3.3, 'voh defaults to the supply');
     // Standard RC charging law between the two thresholds, rail-to-rail output, common practice.
     const want = hysteresisTimes(68e3 * 4.7e-9, 0.6 * 3.3, 0.95, 3.3, 0);
-    for (const key of ['high', 'low', 'frequency', 'duty', 'startup'] as const) near(b.values[key], want[key], 1e-9, key);
+    for (const key of ['high', 'low', 'frequency', 'duty', 'first-edge'] as const) near(b.values[key], want[key], 1e-9, key);
   });
 
   it('comparator-rc: thresholds vref + (Vout − vref)·r1/(r1 + r2), then the RC charging law', () => {
@@ -82,7 +82,7 @@ describe('end to end: timing blocks through tickmark check --json', function () 
     near(b.values['vt+'], upper, 1e-12, 'vt+');
     near(b.values['vt-'], lower, 1e-12, 'vt-');
     const want = hysteresisTimes(15e3 * 10e-9, upper, lower, 4.6, 0.2);
-    for (const key of ['high', 'low', 'frequency', 'duty', 'startup'] as const) near(b.values[key], want[key], 1e-9, key);
+    for (const key of ['high', 'low', 'frequency', 'duty', 'first-edge'] as const) near(b.values[key], want[key], 1e-9, key);
   });
 
   it('555-astable: tH = 0.693(RA+RB)C, tL = 0.693·RB·C, f ≈ 1.44/((RA+2RB)C) with control left at 2/3 VCC', () => {
@@ -95,7 +95,7 @@ describe('end to end: timing blocks through tickmark check --json', function () 
     near(b.values.frequency, 1.44 / ((1.5e3 + 2 * 6.8e3) * 10e-9), 0.002, 'frequency');
     near(b.values.duty, (1.5e3 + 6.8e3) / (1.5e3 + 2 * 6.8e3), 1e-9, 'duty = (RA+RB)/(RA+2RB), SLFS022');
     // RC charging law from 0 V to 2/3 VCC: (RA + RB)·C·ln 3, common practice.
-    near(b.values.startup, (1.5e3 + 6.8e3) * 10e-9 * Math.log(3), 1e-9, 'startup');
+    near(b.values['first-edge'], (1.5e3 + 6.8e3) * 10e-9 * Math.log(3), 1e-9, 'first-edge');
   });
 
   it('555-astable with a diode across RB and the control pin at 0.6·VCC: charge through RA alone', () => {
@@ -194,12 +194,12 @@ describe('end to end: timing blocks through tickmark check --json', function () 
     before(async () => (engine = await startEngine()));
 
     async function againstSpice(b: JsonBlock, netlist: (analysis: string) => string, level: number): Promise<void> {
-      const sim = await simulate(engine, netlist(tran(b.values.period, b.values.startup, 6)));
+      const sim = await simulate(engine, netlist(tran(b.values.period, b.values['first-edge'], 6)));
       const got = measure(sim.time, sim.out, level);
       // Switch-level netlists of our own; ideal switching, so the closed form should hold within 0.3 %.
       near(b.values.frequency, got.frequency, 0.003, 'frequency against ngspice');
       near(b.values.duty, got.duty, 0.003, 'duty against ngspice');
-      near(b.values.startup, got.startup, 0.003, 'startup against ngspice');
+      near(b.values['first-edge'], got.firstEdge, 0.003, 'first edge against ngspice');
     }
 
     it('schmitt-rc status-blink', async () => {
@@ -253,7 +253,7 @@ describe('end to end: timing blocks through tickmark check --json', function () 
       // Every result is monotonic in each input, so no interior point of a finer grid lies outside the corners.
       const fine = rangeOver(grid(5));
       const nominal = ne555Times({ supply: 9, ra: 4.7e3, rb: 10e3, c: 1e-6, control: 6 });
-      for (const result of ['high', 'low', 'frequency', 'duty', 'startup'] as const) {
+      for (const result of ['high', 'low', 'frequency', 'duty', 'first-edge'] as const) {
         assert.ok(fine[result].min >= corners[result].min * (1 - 1e-12) && fine[result].max <= corners[result].max * (1 + 1e-12), `${result} is monotonic`);
         near(b.values[result], nominal[result], 1e-9, `${result} nominal`);
         near(b.spread?.[result]?.min, corners[result].min, 1e-9, `${result} min`);

@@ -36,7 +36,7 @@ function edges(time: number[], out: number[], level: number): Array<{ t: number;
   return found;
 }
 
-export interface Measured { startup: number; frequency: number; duty: number }
+export interface Measured { firstEdge: number; frequency: number; duty: number }
 
 /** Startup (first edge), and period and duty averaged over the steady cycles after the first one. */
 export function measure(time: number[], out: number[], level: number): Measured {
@@ -49,7 +49,7 @@ export function measure(time: number[], out: number[], level: number): Measured 
   // High times: from each rise to the next fall.
   const highs = rises.map((r) => { const f = falls.find((t) => t > r); return f === undefined ? undefined : f - r; }).filter((h): h is number => h !== undefined);
   const high = highs.reduce((s, h) => s + h, 0) / highs.length;
-  return { startup: all[0].t, frequency: 1 / period, duty: high / period };
+  return { firstEdge: all[0].t, frequency: 1 / period, duty: high / period };
 }
 
 /** Simulated time and step for `cycles` periods plus startup, a step of period/4000 for sharp edges. */

@@ -1,5 +1,5 @@
 // Closed-form oscillator timing against ngspice (npm eecircuit-engine, ngspice compiled to WebAssembly).
-// Each circuit is a switch-level netlist of our own values; frequency, duty and startup are measured from
+// Each circuit is a switch-level netlist of our own values; frequency, duty and the first edge are measured from
 // the simulated output edges and must agree with the model within 0.3 %.
 import { strict as assert } from 'assert';
 import type { CircuitModel } from '../../core/circuits/model';
@@ -14,11 +14,11 @@ function closeTo(actual: number, expected: number, relative: number, what: strin
   assert.ok(Math.abs(actual / expected - 1) <= relative, `${what}: simulated ${actual}, model ${expected} (${((actual / expected - 1) * 100).toFixed(3)} %)`);
 }
 
-/** Frequency, duty and startup of the simulation against the closed form, within 0.3 % (the project's bar). */
-function agrees(got: { frequency: number; duty: number; startup: number }, expected: Record<string, number>) {
+/** Frequency, duty and first edge of the simulation against the closed form, within 0.3 % (the project's bar). */
+function agrees(got: { frequency: number; duty: number; firstEdge: number }, expected: Record<string, number>) {
   closeTo(got.frequency, expected.frequency, 0.003, 'frequency');
   closeTo(got.duty, expected.duty, 0.003, 'duty');
-  closeTo(got.startup, expected.startup, 0.003, 'startup');
+  closeTo(got.firstEdge, expected['first-edge'], 0.003, 'first edge');
 }
 
 function model(id: string): CircuitModel {
@@ -40,7 +40,7 @@ describe('oscillators against ngspice (eecircuit-engine)', function () {
     const input = withDefaults(m, { values: { supply: 5, 'vt+': 3.1, 'vt-': 1.4, r: 22e3, c: 33e-9 } });
     assert.deepEqual(m.validate(input), []);
     const expected = m.compute(input);
-    const sim = await simulate(schmittNetlist({ supply: 5, upper: 3.1, lower: 1.4, r: 22e3, c: 33e-9 }, tran(expected.period, expected.startup, 6)));
+    const sim = await simulate(schmittNetlist({ supply: 5, upper: 3.1, lower: 1.4, r: 22e3, c: 33e-9 }, tran(expected.period, expected['first-edge'], 6)));
     const got = measure(sim.time, sim.out, 2.5);
     agrees(got, expected);
   });
@@ -53,7 +53,7 @@ describe('oscillators against ngspice (eecircuit-engine)', function () {
     const expected = m.compute(input);
     // The comparator is a steep tanh of (v+ − v−); 1 pF at v+ gives the regenerative edge a few ns to happen.
     // v+ starts at its output-high value, the power-up state the model assumes (else ngspice sits metastable).
-    const sim = await simulate(comparatorNetlist({ voh: 6, vol: -6, vref: 1, r1: 15e3, r2: 27e3, r: 39e3, c: 4.7e-9 }, tran(expected.period, expected.startup, 6)));
+    const sim = await simulate(comparatorNetlist({ voh: 6, vol: -6, vref: 1, r1: 15e3, r2: 27e3, r: 39e3, c: 4.7e-9 }, tran(expected.period, expected['first-edge'], 6)));
     const got = measure(sim.time, sim.out, 0);
     agrees(got, expected);
   });
@@ -69,7 +69,7 @@ describe('oscillators against ngspice (eecircuit-engine)', function () {
       const expected = m.compute(input);
       const upper = input.values.control;
       // The 555's latch is a hysteresis window on the capacitor voltage: on above `upper`, off below `upper/2`.
-      const sim = await simulate(ne555AstableNetlist({ supply: 9, ra: 4.7e3, rb: 12e3, c: 22e-9, control: upper }, tran(expected.period, expected.startup, 6)));
+      const sim = await simulate(ne555AstableNetlist({ supply: 9, ra: 4.7e3, rb: 12e3, c: 22e-9, control: upper }, tran(expected.period, expected['first-edge'], 6)));
       const got = measure(sim.time, sim.out, 4.5);
       agrees(got, expected);
     });
@@ -90,7 +90,7 @@ ca1 a1 0 1p ic=3.3
 bout out 0 v = v(b)
 r1 a x 68k
 c1 b x 2.2n ic=0
-${tran(expected.period, expected.startup, 6)}
+${tran(expected.period, expected['first-edge'], 6)}
 .end`);
     const got = measure(sim.time, sim.out, 1.65);
     agrees(got, expected);

@@ -79,14 +79,14 @@ export function panelTests(): void {
       // heartbeat: 3.3 V, VT+ = 0.58 · 3.3 V, VT− = 0.33 · 3.3 V, 470 kΩ, 1 µF (demo/notes/heartbeat.md).
       const expected = schmittFrequency(3.3, 0.58 * 3.3, 0.33 * 3.3, 470e3, 1e-6);
       assert.ok(relativelyClose(show.block.values.frequency, expected), `posted ${show.block.values.frequency} Hz, law gives ${expected} Hz`);
-      assert.deepEqual(show.waveform?.traces.map((t) => t.name), ['capacitor', 'output']);
+      assert.deepEqual(show.waveform?.traces.map((t) => t.name), ['timing node', 'output']);
       assert.deepEqual(show.waveform?.levels.map((l) => Number(l.value.toFixed(6))), [Number((0.58 * 3.3).toFixed(6)), Number((0.33 * 3.3).toFixed(6))]);
       // The capacitor starts discharged and never leaves the band between 0 V and the supply.
-      const capacitor = show.waveform!.traces[0].points;
-      assert.equal(capacitor[0][1], 0);
-      assert.ok(capacitor.every(([, v]) => v >= 0 && v <= 3.3 + 1e-9));
-      // Several cycles from startup: the time axis spans at least the startup plus two periods.
-      assert.ok(show.waveform!.duration >= show.block.values.startup + 2 / expected);
+      const node = show.waveform!.traces[0].points;
+      assert.equal(node[0][1], 0);
+      assert.ok(node.every(([, v]) => v >= 0 && v <= 3.3 + 1e-9));
+      // Several cycles from power-up: the time axis spans at least the first edge plus two periods.
+      assert.ok(show.waveform!.duration >= show.block.values['first-edge'] + 2 / expected);
       // Only a script that ran under the panel's CSP can answer: the webview drew what was posted.
       const drawn = await eventually(() => record.drawn.find((d) => d.block === 'heartbeat'), 'the webview to draw heartbeat', 20_000);
       assert.equal(drawn.traces, 2);
