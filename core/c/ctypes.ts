@@ -14,6 +14,9 @@ export interface FloatType {
 }
 export type CType = IntType | FloatType;
 
+/** A typedef name that undecided #if branches define as different types: using it is a finding, never a guess. */
+export interface TypeConflict { kind: 'conflict'; message: string }
+
 /** An evaluated value: BigInt for integer types, a JS double for floating types. */
 export interface Val { v: bigint | number; t: CType }
 

@@ -1,14 +1,14 @@
 // Finds `enum` constants, `const`/`constexpr` variables and typedefs of arithmetic types in the token stream
 // that survives preprocessing. Fed one token at a time, so each declaration lands in the #if layer it sits in.
-import { keywordTypeName, TYPE_KEYWORDS, type CType } from './ctypes';
-import type { Declaration } from './scope';
+import { keywordTypeName, TYPE_KEYWORDS, type CType, type TypeConflict } from './ctypes';
+import type { Declaration, TypedefDef } from './scope';
 import type { SourceToken } from './tokens';
 
 export interface DeclarationSink {
   declare(d: Declaration): void;
-  typedef(name: string, type: CType): void;
-  /** A typedef name or a <stdint.h> name. */
-  typeNamed(name: string): CType | undefined;
+  typedef(def: TypedefDef): void;
+  /** A typedef name or a <stdint.h> name; a conflict for a typedef that undecided #if branches define apart. */
+  typeNamed(name: string): CType | TypeConflict | undefined;
   lineOf(tok: SourceToken): number;
 }
 
@@ -96,7 +96,7 @@ export class DeclarationScanner {
     let i = 0;
     const words: string[] = [];
     const typeWords: string[] = [];
-    let named: CType | undefined;
+    let named: CType | TypeConflict | undefined;
     for (; i < tokens.length && tokens[i].kind === 'ident'; i++) {
       const w = tokens[i].text;
       if (STORAGE.has(w)) { words.push(w); continue; }
@@ -108,14 +108,20 @@ export class DeclarationScanner {
       break;
     }
     const keywordType = typeWords.length ? keywordTypeName(typeWords) : undefined;
-    const type = named ?? (keywordType ? this.sink.typeNamed(keywordType) : undefined);
+    const found = named ?? (keywordType ? this.sink.typeNamed(keywordType) : undefined);
     if (words.includes('typedef')) {
       const name = tokens[i];
-      if (type && name?.kind === 'ident' && i === tokens.length - 1) this.sink.typedef(name.text, type.kind === 'int' ? { ...type, name: name.text, base: type.base ?? type.name } : type);
+      if (found && name?.kind === 'ident' && i === tokens.length - 1) {
+        const spelled = tokens.slice(0, i).filter((t) => t.text !== 'typedef').map((t) => t.text).join(' ');
+        const type = found.kind === 'int' ? { ...found, name: name.text, base: found.base ?? found.name } : found;
+        this.sink.typedef({ name: name.text, type, spelled, uri: name.uri, line: this.sink.lineOf(name) });
+      }
       return;
     }
+    const conflict = found?.kind === 'conflict' ? found.message : undefined;
+    const type = found?.kind === 'conflict' ? undefined : found;
     const isAuto = words.includes('auto') && !type && typeWords.length === 0;
-    if (!(words.includes('const') || words.includes('constexpr')) || (!type && !isAuto)) return;
+    if (!(words.includes('const') || words.includes('constexpr')) || (!type && !isAuto && !conflict)) return;
     // Declarators: NAME = initialiser, separated by commas at depth 0; pointers, arrays and functions are skipped.
     while (i < tokens.length) {
       const name = tokens[i];
@@ -131,7 +137,7 @@ export class DeclarationScanner {
       const init = tokens.slice(i + 2, j);
       if (init.length) {
         this.sink.declare({
-          name: name.text, kind: 'const', type, init, uri: name.uri, line: this.sink.lineOf(name),
+          name: name.text, kind: 'const', type, init, conditional: conflict, uri: name.uri, line: this.sink.lineOf(name),
           nameSpan: { start: name.start, end: name.end }, span: { start: tokens[0].start, end: init[init.length - 1].end },
         });
       }

@@ -1,5 +1,6 @@
 // Parser for C constant expressions (ISO C11 6.5, 6.6) over macro-expanded tokens, with a depth bound.
-import { keywordTypeName, TYPE_KEYWORDS, type CType } from './ctypes';
+import { Code } from '../codes';
+import { keywordTypeName, TYPE_KEYWORDS, type CType, type TypeConflict } from './ctypes';
 import type { SourceToken } from './tokens';
 
 export type Node = (
@@ -14,7 +15,8 @@ export type Node = (
 /** Set on a parenthesised expression: its '(' and ')', so a finding can cover the whole of it. */
 export interface Parenthesised { open?: SourceToken; close?: SourceToken }
 
-export interface ParseError { error: string; tok?: SourceToken }
+/** `code`: a diagnostic code other than a syntax error (a typedef that depends on the build configuration). */
+export interface ParseError { error: string; tok?: SourceToken; code?: string }
 
 // Binary precedence, C11 6.5.5–6.5.14; higher binds tighter.
 const PREC: Record<string, number> = {
@@ -27,11 +29,11 @@ export const MAX_EXPRESSION_DEPTH = 200;
 class Failure { constructor(readonly error: ParseError) {} }
 
 /** `typedefName` resolves an identifier used as a type name (`uint8_t`, a file's own typedef). */
-export function parseExpression(tokens: SourceToken[], typedefName: (name: string) => CType | undefined): Node | ParseError {
+export function parseExpression(tokens: SourceToken[], typedefName: (name: string) => CType | TypeConflict | undefined): Node | ParseError {
   let pos = 0;
   let depth = 0;
   const peek = (): SourceToken | undefined => tokens[pos];
-  const fail = (error: string, tok = tokens[pos] ?? tokens[tokens.length - 1]): never => { throw new Failure({ error, tok }); };
+  const fail = (error: string, tok = tokens[pos] ?? tokens[tokens.length - 1], code?: string): never => { throw new Failure({ error, tok, code }); };
   const expect = (text: string): SourceToken => {
     const t = peek();
     if (t?.text !== text || (t.kind !== 'punct')) fail(t ? `expected '${text}' before '${t.text}'` : `expected '${text}' at end of expression`);
@@ -47,12 +49,15 @@ export function parseExpression(tokens: SourceToken[], typedefName: (name: strin
     while (tokens[j]?.kind === 'ident' && TYPE_KEYWORDS.has(tokens[j].text)) words.push(tokens[j++].text);
     let type: CType | undefined;
     if (words.every((w) => w === 'const' || w === 'volatile') && tokens[j]?.kind === 'ident') {
-      type = typedefName(tokens[j].text);
+      const named = typedefName(tokens[j].text);
+      if (named?.kind === 'conflict') fail(named.message, tokens[j], Code.cConditional);
+      type = named as CType | undefined;
       if (type) j++;
       while (tokens[j]?.text === 'const' || tokens[j]?.text === 'volatile') j++;
     } else {
       const name = keywordTypeName(words);
-      type = name ? typedefName(name) : undefined;
+      const keyword = name ? typedefName(name) : undefined;
+      type = keyword?.kind === 'conflict' ? undefined : keyword;
     }
     if (!type || tokens[j]?.text !== ')') return undefined;
     return { type, length: j - pos + 1 };

@@ -3,7 +3,7 @@
 import { Code } from '../codes';
 import type { Finding, Severity } from '../types';
 import { decideDefined, decideIf, preprocessorTypes, type Decision } from './conditions';
-import type { CType, TypeSystem } from './ctypes';
+import type { TypeSystem } from './ctypes';
 import { DeclarationScanner } from './declarations';
 import { resolveInclude, type IncludeEnv } from './include';
 import { DEFAULT_LIMITS, type ExpandLimits, type MacroDef } from './macros';
@@ -18,8 +18,8 @@ export interface PreprocessOptions extends IncludeEnv {
 }
 
 export interface PreprocessResult {
+  /** Macros, declarations and typedefs in effect at the end of the file. */
   root: Scope;
-  typedefs: Map<string, CType>;
   findings: Array<Finding & { uri: string }>;
   dependencies: string[];
 }
@@ -42,7 +42,6 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
   const limits = options.limits ?? DEFAULT_LIMITS;
   const ppTypes = preprocessorTypes(options.ts);
   const root = new Scope();
-  const typedefs = new Map<string, CType>();
   const findings: Array<Finding & { uri: string }> = [];
   const dependencies = new Set<string>();
   const lineOfFile = new Map<string, (offset: number) => number>();
@@ -55,8 +54,8 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
   };
   const scanner = new DeclarationScanner({
     declare: (d) => current.decls.set(d.name, { kind: 'def', def: d }),
-    typedef: (name, type) => typedefs.set(name, type),
-    typeNamed: (name) => typedefs.get(name) ?? options.ts.named.get(name),
+    typedef: (def) => current.typedefs.set(def.name, { kind: 'def', def }),
+    typeNamed: (name) => current.typeNamed(name) ?? options.ts.named.get(name),
     lineOf: (tok) => lineOfFile.get(tok.uri)?.(tok.start) ?? 1,
   });
 
@@ -239,5 +238,5 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
   } else {
     processFile(entryUri, text, [entryUri]);
   }
-  return { root, typedefs, findings, dependencies: [...dependencies] };
+  return { root, findings, dependencies: [...dependencies] };
 }

@@ -1,7 +1,7 @@
 // Definitions in effect, layered: each branch of an #if whose condition cannot be decided gets its own
 // layer, and the layers merge at #endif. A name defined alike (or in one branch only) keeps that
 // definition; defined differently in two branches, it becomes a conflict that lookups report, never a guess.
-import type { CType } from './ctypes';
+import type { CType, TypeConflict } from './ctypes';
 import type { MacroDef } from './macros';
 import type { SourceToken } from './tokens';
 import type { Span } from '../types';
@@ -26,6 +26,9 @@ export interface Declaration {
   line: number;
 }
 
+/** A typedef of an arithmetic type (`typedef uint16_t tick_t;`), with the type as spelled. */
+export interface TypedefDef { name: string; type: CType | TypeConflict; spelled: string; uri: string; line: number }
+
 const sameTokens = (a: SourceToken[] | undefined, b: SourceToken[] | undefined): boolean =>
   (a ?? []).length === (b ?? []).length && (a ?? []).every((t, i) => t.text === (b as SourceToken[])[i].text);
 
@@ -35,10 +38,34 @@ export const sameMacro = (a: MacroDef, b: MacroDef): boolean =>
 export const sameDeclaration = (a: Declaration, b: Declaration): boolean =>
   a === b || (a.kind === b.kind && a.type?.name === b.type?.name && a.previous === b.previous && sameTokens(a.init, b.init) && !a.conditional && !b.conditional);
 
+const sameType = (a: CType | TypeConflict, b: CType | TypeConflict): boolean =>
+  a.kind === 'int' && b.kind === 'int' ? a.bits === b.bits && a.signed === b.signed && a.rank === b.rank && (a.base ?? a.name) === (b.base ?? b.name)
+    : a.kind === 'float' && b.kind === 'float' ? a.name === b.name : a === b;
+
+export const sameTypedef = (a: TypedefDef, b: TypedefDef): boolean => a === b || sameType(a.type, b.type);
+
 export class Scope {
   readonly macros = new Map<string, Binding<MacroDef>>();
   readonly decls = new Map<string, Binding<Declaration>>();
+  readonly typedefs = new Map<string, Binding<TypedefDef>>();
   constructor(readonly parent?: Scope) {}
+
+  typedef(name: string): Binding<TypedefDef> | undefined {
+    for (let s: Scope | undefined = this; s; s = s.parent) {
+      const b = s.typedefs.get(name);
+      if (b) return b;
+    }
+    return undefined;
+  }
+
+  /** A typedef name in effect here; a conflict when undecided #if branches typedef it differently. */
+  typeNamed(name: string): CType | TypeConflict | undefined {
+    const b = this.typedef(name);
+    if (b?.kind === 'def') return b.def.type;
+    if (b?.kind !== 'conflict') return undefined;
+    const each = b.defs.map((d) => `${d.spelled} at ${d.uri.split(/[\\/]/).pop()}:${d.line}`).join(', ');
+    return { kind: 'conflict', message: `${name} is a typedef chosen under #if branches this file does not decide (${each}); its type depends on the build configuration` };
+  }
 
   macro(name: string): Binding<MacroDef> | undefined {
     for (let s: Scope | undefined = this; s; s = s.parent) {
@@ -61,6 +88,7 @@ export class Scope {
 export function mergeBranches(base: Scope, branches: Scope[], fallThrough: boolean): void {
   mergeMap(base, branches, fallThrough, (s) => s.macros, (s, n) => s.macro(n), sameMacro);
   mergeMap(base, branches, fallThrough, (s) => s.decls, (s, n) => s.decl(n), sameDeclaration);
+  mergeMap(base, branches, fallThrough, (s) => s.typedefs, (s, n) => s.typedef(n), sameTypedef);
 }
 
 function mergeMap<T>(

@@ -2,7 +2,7 @@
 // Lookups see the definitions in effect at the end of the file (after every #include and #undef).
 import { Code } from '../codes';
 import type { Finding, Span } from '../types';
-import { convert, fits, typeSystem, type CType, type DataModel, type Val } from './ctypes';
+import { convert, fits, typeSystem, type CType, type DataModel, type TypeConflict, type Val } from './ctypes';
 import { evaluate, isError, type EvalError, type EvalResult } from './evaluate';
 import { expandMacros, type MacroDef } from './macros';
 import { parseExpression } from './parse';
@@ -75,7 +75,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
   const memo = new Map<string, ConstantResolution>();
   const values = new Map<string, Val>();
   const active: string[] = [];
-  const typeNamed = (n: string): CType | undefined => pre.typedefs.get(n) ?? ts.named.get(n);
+  const typeNamed = (n: string): CType | TypeConflict | undefined => root.typeNamed(n) ?? ts.named.get(n);
   const macro = (n: string): MacroDef | undefined => { const b = root.macro(n); return b?.kind === 'def' ? b.def : undefined; };
 
   const fail = (e: EvalError): ConstantResolution => ({
@@ -87,7 +87,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     const expanded = expandMacros(tokens, macro);
     if (isError(expanded)) return expanded;
     const node = parseExpression(expanded, typeNamed);
-    if ('error' in node) return { err: node.error, code: Code.cSyntax, tok: node.tok };
+    if ('error' in node) return { err: node.error, code: node.code ?? Code.cSyntax, tok: node.tok };
     return evaluate(node, { ts, identifier });
   };
 

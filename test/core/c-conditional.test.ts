@@ -55,6 +55,30 @@ describe('C conditionals', () => {
     assert.equal(valueOf(t, 'CH_E'), 11n);
   });
 
+  it('reports a typedef chosen by an undecided #if as a conflict naming both typedefs, never the last one seen', () => {
+    const text = '#include <stdint.h>\n#ifndef SMALL\ntypedef uint32_t tick_t;\n#else\ntypedef uint16_t tick_t;\n#endif\nstatic const tick_t PERIOD = 1000;\n#define TOP ((tick_t)-1)\n';
+    const t = one(text);
+    for (const expr of ['((tick_t)-1)', 'sizeof(tick_t)', 'TOP', 'PERIOD']) {
+      const r = t.evaluate(expr);
+      assert.ok(!r.ok, `${expr} gives ${r.ok ? r.value.value : ''}`);
+      assert.equal(r.code, Code.cConditional, r.message);
+      assert.match(r.message, /tick_t/);
+      assert.match(r.message, /uint32_t at main\.c:3/);
+      assert.match(r.message, /uint16_t at main\.c:5/);
+    }
+    const cast = t.evaluate('((tick_t)-1)');
+    assert.deepEqual(!cast.ok && cast.span, { start: 2, end: 8 }, 'the finding points at the type name');
+  });
+
+  it('keeps a typedef that every branch makes the same type, or that one branch alone makes', () => {
+    const same = one('#ifdef A\ntypedef unsigned int tick_t;\n#else\ntypedef uint32_t tick_t;\n#endif\n');
+    assert.deepEqual(same.evaluate('(tick_t)-1'), { ok: true, value: { value: 4294967295n, type: 'tick_t' } }, 'uint32_t is unsigned int under ilp32');
+    const only = one('#ifdef WIDE_TICKS\ntypedef uint32_t tick_t;\n#endif\ntypedef uint8_t small_t;\n');
+    assert.deepEqual(only.evaluate('(tick_t)-1'), { ok: true, value: { value: 4294967295n, type: 'tick_t' } });
+    const decided = one('#define SMALL 1\n#ifndef SMALL\ntypedef uint32_t tick_t;\n#else\ntypedef uint16_t tick_t;\n#endif\n');
+    assert.deepEqual(decided.evaluate('(tick_t)-1'), { ok: true, value: { value: 65535n, type: 'tick_t' } }, 'a decided #if takes its branch (C11 6.10.1)');
+  });
+
   it('reports unbalanced directives with their position', () => {
     const text = '#endif\n#if 1\n#define N 1\n';
     const t = one(text);

@@ -167,3 +167,26 @@ for (const model of ['lp64', 'ilp32', 'ip16'] as Target[]) {
     });
   });
 }
+
+// A typedef picked by an #if that the file leaves to the build: the compiler's answer changes with -DSMALL, so the
+// evaluator, which sees no -D here, must report the dependence (c-conditional) instead of either value.
+const TICK_TYPEDEF = '#ifndef SMALL\ntypedef uint32_t tick_t;\n#else\ntypedef uint16_t tick_t;\n#endif\n';
+
+for (const model of ['lp64', 'ilp32', 'ip16'] as Target[]) {
+  const compiler = REFERENCE_COMPILERS[model];
+  describe(`a typedef under an undecided #if, against ${compiler.label}, ${model}`, function () {
+    it('the compiler gives ((tick_t)-1) two values, 4294967295 and with -DSMALL 65535; the evaluator names both typedefs', function () {
+      if (!compilerAvailable(model)) skipUnlessCi(this, `${compiler.command} is not installed; reference check skipped`);
+      const [wide] = compileConstants(model, { prelude: TICK_TYPEDEF, expressions: ['((tick_t)-1)'] });
+      const [small] = compileConstants(model, { prelude: TICK_TYPEDEF, expressions: ['((tick_t)-1)'], flags: ['-DSMALL'] });
+      assert.deepEqual([wide, small].map((c) => c.ok && c.value), [4294967295n, 65535n]);
+      const table = buildConstantTable('/firmware/tick.c', TICK_TYPEDEF, { dataModel: model, includeDirs: [], workspaceRoots: ['/firmware'], read: () => undefined });
+      const got = table.evaluate('((tick_t)-1)');
+      assert.ok(!got.ok, `the evaluator picks ${got.ok ? got.value.value : ''}`);
+      assert.equal(got.code, Code.cConditional);
+      assert.match(got.message, /uint32_t at tick\.c:2.*uint16_t at tick\.c:4/);
+      const decided = buildConstantTable('/firmware/tick.c', `#define SMALL\n${TICK_TYPEDEF}`, { dataModel: model, includeDirs: [], workspaceRoots: ['/firmware'], read: () => undefined });
+      assert.deepEqual(decided.evaluate('((tick_t)-1)'), { ok: true, value: { value: small.ok && small.value, type: 'tick_t' } }, 'with SMALL defined in the file, the value -DSMALL gives');
+    });
+  });
+}
