@@ -1,5 +1,6 @@
-// ip16 (int 16-bit, long 32-bit, as avr-gcc): no compiler for it here, so each value is worked by hand from the
-// rules of ISO C11 cited beside it.
+// ip16 (int 16-bit, long 32-bit, float and double 32-bit, as avr-gcc): each value worked by hand from the rules
+// of ISO C11 cited beside it. The same rules are checked against avr-gcc itself in test/reference/gcc-constants,
+// gcc-ubsan and end-to-end.
 import { strict as assert } from 'assert';
 import { buildConstantTable, type DataModel } from '../../core/c';
 
@@ -47,6 +48,14 @@ describe('C constants under ip16, by hand', () => {
     assert.equal(ip16('16 * BAUD'), 'error c-undefined');
     assert.equal(evalIn('ilp32', '16 * BAUD'), '153600 int');
     assert.equal(ip16('F_CPU / (16UL * BAUD) - 1'), '103 unsigned long');
+  });
+
+  it('double is binary32: 20000001 needs 25 significant bits, so it rounds to even, 20000000 (IEC 60559, by hand)', () => {
+    assert.equal(ip16('(unsigned long)(20000001UL * 1.0)'), '20000000 unsigned long');
+    assert.equal(evalIn('ilp32', '(unsigned long)(20000001UL * 1.0)'), '20000001 unsigned long', 'binary64 holds it exactly');
+    assert.equal(ip16('sizeof(double) * 10 + sizeof(long double)'), '44 unsigned int');
+    // 16e6 / 3 = 5333333.33…; binary32 neighbours there are 0.5 apart, so the quotient rounds to 5333333.5.
+    assert.equal(ip16('16e6 / 3'), '5333333.5 double');
   });
 
   it('shifting a 16-bit int by 16 is out of range (C11 6.5.7p3)', () => {
