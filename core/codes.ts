@@ -22,6 +22,12 @@ export const Code = {
   firmwareInC: 'firmware-in-c',
   identifierUnknown: 'identifier-unknown',
   identifierCycle: 'identifier-cycle',
+  // block references (`@name.result`)
+  referenceUnknown: 'reference-unknown',
+  referenceAmbiguous: 'reference-ambiguous',
+  referenceCycle: 'reference-cycle',
+  referenceResult: 'reference-result',
+  blockNameRepeated: 'block-name-repeated',
   // the circuit model
   physics: 'physics',
   registerRange: 'register-range',
@@ -180,6 +186,36 @@ const rows: Record<CodeId, Row> = {
     short: 'Keys of a block refer to each other in a cycle.',
     full: 'A key\'s value names another key whose value in turn depends on it, directly or through others, or on a key without a value.',
     help: 'Give one of the keys in the cycle a plain value.',
+  },
+  'reference-unknown': {
+    severity: 'error',
+    short: 'A `@name` reference names no block.',
+    full: 'A value reads another block\'s result with `@name` or `@name.result`, but no block of that name is in the same file or anywhere in the workspace (the editor\'s folders, the files the CLI reads); the block gets no results that depend on it.',
+    help: 'Correct the name (the message lists the nearest block names), or name the block you mean.',
+  },
+  'reference-ambiguous': {
+    severity: 'error',
+    short: 'A `@name` reference matches more than one block.',
+    full: 'A name resolves in the same file first, then across the workspace; two or more blocks share the name where it was looked up, so the reference cannot choose.',
+    help: 'Give each block its own name.',
+  },
+  'reference-cycle': {
+    severity: 'error',
+    short: 'Blocks read each other\'s results in a cycle.',
+    full: 'A block\'s value reads a result that, through other blocks, depends on the block itself; no block in the cycle can be computed. Reported at each reference in the cycle.',
+    help: 'Break the cycle: give one of the blocks a value of its own.',
+  },
+  'reference-result': {
+    severity: 'error',
+    short: 'A referenced block has no such result, or could not compute it.',
+    full: 'The block a reference names exists, but it has no result of that name (a bare `@name` means its frequency), its own errors left it without results, or the chain of references is deeper than Tickmark follows.',
+    help: 'Name one of the results the message lists, or fix the referenced block first.',
+  },
+  'block-name-repeated': {
+    severity: 'warning',
+    short: 'Two blocks in one file share a name.',
+    full: 'Blocks are told apart by file and name: references, the waveform panel and the CLI\'s `wave --block` need one block per name in a file.',
+    help: 'Rename one of the blocks.',
   },
   'physics': {
     severity: 'error',

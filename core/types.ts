@@ -110,6 +110,22 @@ export interface ResolvedIdentifier {
   line: number;
 }
 
+/** Another block's result a block used (`clock: @sysclk.frequency`), with where that block stands. */
+export interface BlockReference {
+  /** The referenced block's name and result, as resolved (`sysclk`, `frequency`). */
+  name: string;
+  result: string;
+  /** The referenced block: document uri and 1-based line of its header. */
+  uri: string;
+  line: number;
+  /** The nominal value it supplied, SI base units. */
+  value: number;
+  /** The reference as written in this block (its `@name` and `.result`), for the editor. */
+  span: Span;
+  /** The key whose value holds the reference. */
+  key: string;
+}
+
 /** Everything the engine says about one block: the CLI's JSON and the editor's lens, hover and diagnostics. */
 export interface BlockAnalysis {
   /** Name as written, or `circuit@line`. */
@@ -128,6 +144,8 @@ export interface BlockAnalysis {
   spread?: Record<string, SpreadRange>;
   solved?: Record<string, SolvedPart>;
   identifiers: ResolvedIdentifier[];
+  /** Other blocks' results this block used, in the order written. */
+  references?: BlockReference[];
   /** Findings with spans into the block's document (or `uri` when elsewhere). */
   findings: Finding[];
 }

@@ -15,6 +15,7 @@ import { monteCarlo, worstCase } from './spread';
 import { solveUnknowns } from './unknowns';
 import { checkClaims } from './mismatch';
 import { seriesFindings } from './series-check';
+import type { ReferenceSource } from './references';
 
 export interface BlockContext {
   uri: string;
@@ -23,6 +24,10 @@ export interface BlockContext {
   options: AnalyzeOptions;
   /** Identifier source for a data model and the block's `from:` (already resolved by the document). */
   source: IdentifierSource;
+  /** Where `@name` references resolve (the workspace pass); none when absent. */
+  references?: ReferenceSource;
+  /** Told the plan once the block's results are computed, so dependants can evaluate it at their offsets. */
+  computed?: (plan: Plan, overrides: Readonly<Record<string, number>>) => void;
 }
 
 const dataModels: readonly DataModelName[] = ['ilp32', 'lp64', 'ip16'];
@@ -67,8 +72,9 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   }
 
   if (raw.host === 'c') findings.push(...unsignedSuffixHints(raw, model));
-  const plan = buildPlan(raw, model, context.source, dataModel, entries);
+  const plan = buildPlan(raw, model, context.source, dataModel, entries, context.references);
   findings.push(...plan.findings);
+  if (plan.references.length) analysis.references = plan.references;
   findings.push(...seriesFindings(raw, model, context.uri));
   analysis.identifiers = plan.identifiers;
   analysis.choices = { ...plan.choices };
@@ -110,6 +116,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     return analysis;
   }
 
+  context.computed?.(plan, overrides);
   const keys = tolerancedKeys(plan);
   if (keys.length) {
     const spread = worstCase(plan, keys, overrides);

@@ -1,8 +1,11 @@
 // Re-analysis after an edit: a block whose text and firmware answers are unchanged keeps its last analysis,
 // moved by the offset delta when only text above it changed. Kept per document by the editor.
 import type { BlockAnalysis, Finding, RawBlock, Span } from '../types';
+import type { BlockRef } from '../value';
 import { analyzeBlock, type BlockContext } from './block';
 import type { AnalyzeOptions, DataModelName, IdentifierLookup, IdentifierSource } from './context';
+import type { Plan } from './plan';
+import type { ReferenceLookup, ReferenceSource } from './references';
 
 interface Entry {
   /** Where the block stood when analysed; spans inside it move with it. */
@@ -11,6 +14,10 @@ interface Entry {
   analysis: BlockAnalysis;
   /** Every identifier the analysis asked for, with the answer it got. */
   lookups: Array<{ name: string; dataModel: DataModelName; answer: string }>;
+  /** Every block reference it resolved, with the upstream block's fingerprint (or the problem) it got. */
+  references: Array<{ ref: BlockRef; answer: string }>;
+  /** The plan its results came from, handed to the workspace again when the analysis is reused. */
+  computed?: [Plan, Readonly<Record<string, number>>];
   generation: number;
 }
 
@@ -47,8 +54,9 @@ export class AnalysisCache {
     this.stats.blocks++;
     const key = blockSignature(raw, context);
     const entry = this.entries.get(key);
-    if (entry && entry.uri === context.uri && answersHold(entry, context.source)) {
+    if (entry && entry.uri === context.uri && answersHold(entry, context.source) && referencesHold(entry, context.references)) {
       entry.generation = this.generation;
+      if (entry.computed) context.computed?.(...entry.computed);
       const moved = movedAnalysis(entry, raw, context);
       entry.span = raw.span;
       entry.analysis = moved;
@@ -56,8 +64,24 @@ export class AnalysisCache {
     }
     this.stats.evaluated++;
     const recorder = recordingSource(context.source);
-    const analysis = analyzeBlock(raw, { ...context, source: recorder.source });
-    this.entries.set(key, { span: raw.span, uri: context.uri, analysis, lookups: recorder.lookups, generation: this.generation });
+    const references: Entry['references'] = [];
+    let computed: Entry['computed'];
+    const analysis = analyzeBlock(raw, {
+      ...context,
+      source: recorder.source,
+      references: context.references && {
+        resolve(ref) {
+          const found = context.references!.resolve(ref);
+          references.push({ ref, answer: referenceAnswer(found) });
+          return found;
+        },
+      },
+      computed: (plan, overrides) => {
+        computed = [plan, overrides];
+        context.computed?.(plan, overrides);
+      },
+    });
+    this.entries.set(key, { span: raw.span, uri: context.uri, analysis, lookups: recorder.lookups, references, computed, generation: this.generation });
     return cloneForCaller(analysis);
   }
 }
@@ -104,6 +128,16 @@ function recordingSource(inner: IdentifierSource): { source: IdentifierSource; l
   return { source, lookups };
 }
 
+function referenceAnswer(found: ReferenceLookup): string {
+  if (!found.ok) return JSON.stringify([found.code, found.message]);
+  return JSON.stringify([found.output.fingerprint, found.result]);
+}
+
+function referencesHold(entry: Entry, source: ReferenceSource | undefined): boolean {
+  if (!source) return entry.references.length === 0;
+  return entry.references.every((r) => referenceAnswer(source.resolve(r.ref)) === r.answer);
+}
+
 function answersHold(entry: Entry, source: IdentifierSource): boolean {
   return entry.lookups.every((l) => answerOf(source.lookup(l.name, l.dataModel)) === l.answer);
 }
@@ -121,7 +155,9 @@ function movedAnalysis(entry: Entry, raw: RawBlock, context: BlockContext): Bloc
     fixes: f.fixes?.map((fix) => ({ ...fix, edits: fix.edits.map((e) => ({ ...e, span: move(e.span, e.uri) })) })),
   }));
   for (const f of findings) if (f.fixes === undefined) delete f.fixes;
-  return { ...entry.analysis, line: context.line, block: raw, findings };
+  const moved: BlockAnalysis = { ...entry.analysis, line: context.line, block: raw, findings };
+  if (entry.analysis.references) moved.references = entry.analysis.references.map((r) => ({ ...r, span: move(r.span, undefined) }));
+  return moved;
 }
 
 /** The caller may add findings to its copy; the cached one stays as analysed. */

@@ -37,8 +37,34 @@ function replayOf(plan: Plan): Replay {
   return plan.replay;
 }
 
-/** Evaluates every quantity key in plan order; `overrides` replace a key (solved or trial values). */
-export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> {
+/**
+ * Evaluations under way inside another block's (a reference's upstream), and a count of outermost ones: an
+ * upstream block answers once per outermost evaluation, however many paths lead to it.
+ */
+const nesting = { depth: 0, epoch: 0 };
+
+/** Runs an upstream block's evaluation inside the current one; see `upstreamEpoch`. */
+export function nested<T>(run: () => T): T {
+  nesting.depth++;
+  try {
+    return run();
+  } finally {
+    nesting.depth--;
+  }
+}
+
+/** Which outermost evaluation is under way: an upstream answer is reused within one. */
+export function upstreamEpoch(): number {
+  return nesting.epoch;
+}
+
+/**
+ * Evaluates every quantity key in plan order; `overrides` replace a key (solved or trial values). `offsets` hold
+ * the block's own toleranced keys and the ids of toleranced inputs upstream of its references; `upstream`, when
+ * given, is where references read theirs (an upstream block evaluated for a dependant).
+ */
+export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>, upstream: Offsets | undefined = offsets): Record<string, number> {
+  if (nesting.depth === 0) nesting.epoch++;
   const values: Record<string, number> = {};
   const replay = replayOf(plan);
   const env = replay.env;
@@ -48,6 +74,13 @@ export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readon
     else if (slot) {
       const refs = slot.blockRefs;
       for (let i = 0; i < refs.length; i++) env[refs[i][0]] = values[refs[i][1]];
+      const others = slot.upstream;
+      if (others) {
+        for (let i = 0; i < others.length; i++) {
+          const [name, output, result] = others[i];
+          env[name] = upstream ? output.at(upstream)?.[result] ?? NaN : output.values[result];
+        }
+      }
       value = slot.evaluate(env);
       if (slot.tolerance && offsets && offsets[key]) value = applyTolerance(value, slot.tolerance, offsets[key]);
     } else {
@@ -60,6 +93,11 @@ export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readon
 }
 
 /** Keys whose given value carries a tolerance. */
-export function tolerancedKeys(plan: Plan): string[] {
+export function ownTolerancedKeys(plan: Plan): string[] {
   return [...plan.slots.values()].filter((s) => s.tolerance && (s.tolerance.plus > 0 || s.tolerance.minus > 0)).map((s) => s.key);
+}
+
+/** Every input that moves the block's results: its own toleranced keys, then the ids of toleranced inputs upstream. */
+export function tolerancedKeys(plan: Plan): string[] {
+  return [...ownTolerancedKeys(plan), ...plan.upstreamInputs.map((i) => i.id)];
 }

@@ -70,8 +70,8 @@ export function runModel(model: CircuitModel, input: ModelInput): { values: Reco
 }
 
 /** Results of one evaluation, or undefined when the inputs break the model (never throws). */
-export function computeAt(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>): Record<string, number> | undefined {
-  const values = evaluateParams(plan, offsets, overrides);
+export function computeAt(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>, upstream?: Offsets): Record<string, number> | undefined {
+  const values = evaluateParams(plan, offsets, overrides, upstream ?? offsets);
   try {
     const input = modelInput(plan, values);
     if (!withinLimits(plan.model, values) || hasError(plan.model.validate(input))) return undefined;

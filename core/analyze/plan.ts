@@ -1,14 +1,15 @@
 // Turns a scanned block into an evaluation plan: each parameter compiled once, replayed many times
 // (nominal, tolerance corners, Monte Carlo samples, solver steps) without parsing again.
-import type { BlockEntry, Finding, RawBlock, ResolvedIdentifier, Span, Tolerance } from '../types';
+import type { BlockEntry, BlockReference, Dim, Finding, RawBlock, ResolvedIdentifier, Span, Tolerance } from '../types';
 import type { CircuitModel, IntegerSet, QuantityParam } from '../circuits/model';
-import { compileValue, dimOf, parseIntegerSet, parseValue, type ValueNode } from '../value';
+import { compileValue, dimOf, parseIntegerSet, parseValue, type BlockRef, type ValueNode } from '../value';
 import { Code } from '../codes';
 import type { DataModelName, IdentifierLookup, IdentifierSource } from './context';
 import { didYouMean, isMetaEntry, metaKeys } from './keys';
 import { describeDim, toleranceMismatch } from './dims';
 import type { Replay } from './evaluate';
 import { evaluationOrder } from './order';
+import { noReferences, type BlockOutput, type ReferenceSource, type UpstreamInput } from './references';
 
 export interface Slot {
   key: string;
@@ -18,6 +19,8 @@ export interface Slot {
   /** Identifier as written → block key it names. */
   blockRefs: Array<[string, string]>;
   tolerance?: Tolerance;
+  /** Other blocks' results the value reads: name in the value (`@xtal.frequency`), the block, the result. */
+  upstream?: Array<[string, BlockOutput, string]>;
   /** The value is exactly one firmware identifier (the target of a "set the constant" fix). */
   soleIdentifier?: string;
 }
@@ -43,14 +46,18 @@ export interface Plan {
   unknowns: Unknown[];
   findings: Finding[];
   identifiers: ResolvedIdentifier[];
+  /** Other blocks' results used, in the order written. */
+  references: BlockReference[];
+  /** Toleranced inputs upstream of the references, each once. */
+  upstreamInputs: UpstreamInput[];
   /** Steps of evaluateParams, resolved on its first call. */
   replay?: Replay;
 }
 
-function identifiersOf(node: ValueNode, out: Array<{ name: string; span: Span }> = []): Array<{ name: string; span: Span }> {
+function identifiersOf(node: ValueNode, out: Array<{ name: string; span: Span; ref?: BlockRef }> = []): Array<{ name: string; span: Span; ref?: BlockRef }> {
   switch (node.kind) {
     case 'ident':
-      out.push({ name: node.name, span: node.span });
+      out.push({ name: node.name, span: node.span, ref: node.ref });
       break;
     case 'unary':
       identifiersOf(node.arg, out);
@@ -93,7 +100,14 @@ export function modelKeys(model: CircuitModel): ModelKeys {
  * Builds the plan; every problem becomes a finding and the plan stays usable for what did resolve. `entries` is
  * the block's entries by key when the caller has them already.
  */
-export function buildPlan(raw: RawBlock, model: CircuitModel, source: IdentifierSource, dataModel: DataModelName, entries?: Map<string, BlockEntry>): Plan {
+export function buildPlan(
+  raw: RawBlock,
+  model: CircuitModel,
+  source: IdentifierSource,
+  dataModel: DataModelName,
+  entries?: Map<string, BlockEntry>,
+  references: ReferenceSource = noReferences,
+): Plan {
   const keys = modelKeys(model);
   const plan: Plan = {
     model,
@@ -107,6 +121,8 @@ export function buildPlan(raw: RawBlock, model: CircuitModel, source: Identifier
     unknowns: [],
     findings: [],
     identifiers: [],
+    references: [],
+    upstreamInputs: [],
   };
   const quantityKeys = keys.quantities;
 
@@ -151,7 +167,7 @@ export function buildPlan(raw: RawBlock, model: CircuitModel, source: Identifier
       plan.findings.push(error(Code.valueTolerance, toleranceProblem, parsed.toleranceSpan ?? entry.valueSpan));
       continue;
     }
-    const slot = compileSlot(plan, spec, entry, parsed.expr, parsed.tolerance, quantityKeys, source, dataModel);
+    const slot = compileSlot(plan, spec, entry, parsed.expr, parsed.tolerance, quantityKeys, source, dataModel, references);
     if (slot) plan.slots.set(spec.key, slot);
   }
   for (const spec of model.params) {
@@ -170,11 +186,28 @@ function compileSlot(
   quantityKeys: Map<string, QuantityParam>,
   source: IdentifierSource,
   dataModel: DataModelName,
+  references: ReferenceSource,
 ): Slot | undefined {
   const blockRefs: Array<[string, string]> = [];
+  const upstream: Array<[string, BlockOutput, string]> = [];
+  const upstreamDims = new Map<string, Dim>();
   let failed = false;
   const idents = identifiersOf(expr);
   for (const ident of idents) {
+    if (ident.ref) {
+      const found = references.resolve(ident.ref);
+      if (!found.ok) {
+        plan.findings.push(error(found.code, found.message, ident.span));
+        failed = true;
+        continue;
+      }
+      upstreamDims.set(ident.name, found.dim);
+      if (!upstream.some(([name]) => name === ident.name)) upstream.push([ident.name, found.output, found.result]);
+      const { output } = found;
+      plan.references.push({ name: output.name, result: found.result, uri: output.uri, line: output.line, value: output.values[found.result], span: ident.span, key: spec.key });
+      for (const input of output.inputs) if (!plan.upstreamInputs.some((i) => i.id === input.id)) plan.upstreamInputs.push(input);
+      continue;
+    }
     const asKey = ident.name.toLowerCase();
     if (quantityKeys.has(asKey) && asKey !== spec.key) {
       blockRefs.push([ident.name, asKey]);
@@ -192,6 +225,8 @@ function compileSlot(
   }
   if (failed) return undefined;
   const dim = dimOf(expr, (name) => {
+    const fromBlock = upstreamDims.get(name);
+    if (fromBlock !== undefined) return fromBlock;
     const key = name.toLowerCase();
     if (quantityKeys.has(key) && key !== spec.key) return quantityKeys.get(key)!.dim;
     return '';
@@ -206,10 +241,12 @@ function compileSlot(
     );
     return undefined;
   }
-  const soleIdentifier = expr.kind === 'ident' && blockRefs.length === 0 ? expr.name : undefined;
+  const soleIdentifier = expr.kind === 'ident' && !expr.ref && blockRefs.length === 0 ? expr.name : undefined;
   // Firmware constants are fixed for the plan: compiled in as numbers, so only block references read the
   // environment, and a name one slot reads from firmware and another as a block key cannot collide.
   const refNames = new Set(blockRefs.map(([name]) => name));
   const constant = (name: string) => (refNames.has(name) ? undefined : plan.externalLookups.get(name)?.value);
-  return { key: spec.key, spec, entry, evaluate: compileValue(expr, constant), blockRefs, tolerance, soleIdentifier };
+  const slot: Slot = { key: spec.key, spec, entry, evaluate: compileValue(expr, constant), blockRefs, tolerance, soleIdentifier };
+  if (upstream.length) slot.upstream = upstream;
+  return slot;
 }

@@ -70,7 +70,8 @@ function addShares(plan: Plan, keys: string[], ranges: Record<string, SpreadRang
     const total = Object.values(byKey).reduce((a, b) => a + b, 0);
     if (total <= 0) continue;
     const shares: Record<string, number> = {};
-    for (const [key, swing] of Object.entries(byKey)) shares[key] = swing / total;
+    // Upstream inputs are shown by the reference that brings them (`@xtal.frequency`).
+    for (const [key, swing] of Object.entries(byKey)) shares[plan.upstreamInputs.find((i) => i.id === key)?.label ?? key] = swing / total;
     ranges[result].shares = shares;
   }
 }

@@ -39,6 +39,8 @@ function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string) {
   if (analysis.spread) out.spread = withStartup(analysis.spread);
   if (analysis.solved) out.solved = analysis.solved;
   if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => Object.assign({}, i));
+  // `file` and `line` locate the referenced block; `value` is the number it supplied.
+  out.references = (analysis.references ?? []).map((r) => ({ name: r.name, result: r.result, file: displayPath(r.uri, cwd), line: r.line, value: r.value }));
   out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, cwd));
   return out;
 }

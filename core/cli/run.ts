@@ -1,8 +1,8 @@
 // A check over files: each read once, analysed with the same engine the editor uses.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { analyzeDocument, defaultAnalyzeOptions, tooLargeAnalysis, type AnalyzeOptions } from '../analyze';
-import type { DocumentAnalysis } from '../types';
+import { analyzeWorkspace, defaultAnalyzeOptions, tooLargeAnalysis, type AnalyzeOptions } from '../analyze';
+import type { DocumentAnalysis, TextDocumentLike } from '../types';
 import { lineStarts } from '../scan/lines';
 import { languageOf, readText, realPath, sizeOf } from './files';
 
@@ -20,16 +20,25 @@ export function cliOptions(overrides: Partial<AnalyzeOptions>): AnalyzeOptions {
   return { ...base, read: overrides.read ?? ((file) => readText(file, maxFileBytes)), realpath: overrides.realpath ?? realPath };
 }
 
+/** Every file read first, then analysed together: `@name` references resolve across all of them. */
 export function checkFiles(files: string[], options: AnalyzeOptions, display: (file: string) => string): CheckedFile[] {
-  const checked: CheckedFile[] = [];
+  const readable: TextDocumentLike[] = [];
+  const tooLarge = new Set<string>();
   for (const file of files) {
     // A file above the size setting is not read at all: one notice, as the editor gives.
-    if (sizeOf(file) > options.maxFileBytes) {
+    if (sizeOf(file) > options.maxFileBytes) tooLarge.add(file);
+    else readable.push({ uri: file, text: readText(file, options.maxFileBytes) ?? '', languageId: languageOf(file) });
+  }
+  const analyses = new Map(analyzeWorkspace(readable, options).map((a) => [a.uri, a]));
+  const texts = new Map(readable.map((d) => [d.uri, d.text]));
+  const checked: CheckedFile[] = [];
+  for (const file of files) {
+    if (tooLarge.has(file)) {
       checked.push({ file, display: display(file), text: '', starts: [0], analysis: tooLargeAnalysis(file, options) });
       continue;
     }
-    const text = readText(file, options.maxFileBytes) ?? '';
-    const analysis = analyzeDocument({ uri: file, text, languageId: languageOf(file) }, options);
+    const analysis = analyses.get(file)!;
+    const text = texts.get(file) ?? '';
     if (analysis.blocks.length === 0 && analysis.findings.length === 0) continue;
     // Line starts only for a file with something to locate: a clean file is never walked twice.
     let starts: number[] | undefined;

@@ -7,3 +7,5 @@ export { dimOf } from './dim';
 export { compileValue, type CompiledValue } from './compile';
 export { MAX_DEPTH } from './parser';
 export { MAX_TOKENS } from './lexer';
+export type { BlockRef } from './ast';
+export { readReference, referencesIn, defaultReferenceResult } from './reference';

@@ -3,10 +3,12 @@
 import type { Dim, Finding, Span } from '../types';
 import { Code } from '../codes';
 import { decodeSuffix, letterCode, suggestSuffix } from './units';
+import type { BlockRef } from './ast';
+import { readReference } from './reference';
 
 export type Token =
   | { t: 'num'; value: number; dim: Dim; span: Span; text: string }
-  | { t: 'id'; name: string; span: Span }
+  | { t: 'id'; name: string; span: Span; ref?: BlockRef }
   | { t: 'op'; op: '+' | '-' | '*' | '/' | '(' | ')'; span: Span }
   | { t: 'pm'; span: Span }
   | { t: 'q'; span: Span };
@@ -155,6 +157,13 @@ export function lex(text: string, offset: number): LexResult {
         tokens.push({ t: 'id', name, span: span(i, end) });
         i = end;
       }
+      continue;
+    }
+    if (c === '@') {
+      const read = readReference(text, i, offset);
+      if ('problem' in read) findings.push(error(Code.valueSyntax, read.problem, span(i, read.end)));
+      else tokens.push({ t: 'id', name: read.ref.key, span: span(i, read.end), ref: read.ref });
+      i = read.end;
       continue;
     }
     if (c === '±') { tokens.push({ t: 'pm', span: span(i, i + 1) }); i++; continue; }

@@ -39,7 +39,7 @@ export function parseExpression(tokens: readonly Token[], whole: Span): { expr?:
         after ? `expected a number or name after ${describe(after)}` : 'empty value', where));
     }
     if (token.t === 'num') { at++; return { kind: 'number', value: token.value, dim: token.dim, span: token.span }; }
-    if (token.t === 'id') { at++; return { kind: 'ident', name: token.name, span: token.span }; }
+    if (token.t === 'id') { at++; return token.ref ? { kind: 'ident', name: token.name, span: token.span, ref: token.ref } : { kind: 'ident', name: token.name, span: token.span }; }
     if (isOp(token, '(')) {
       if (depth >= MAX_DEPTH) throw new Stop(error(Code.valueTooDeep, `parentheses nested more than ${MAX_DEPTH} deep`, token.span));
       at++;

@@ -1,0 +1,73 @@
+// Block references as a block sees them: another block's results, nominal and at tolerance offsets, with the
+// toleranced inputs upstream of them. The workspace pass (workspace.ts) decides which block a name means.
+import type { Dim } from '../types';
+import type { ResultSpec } from '../circuits/model';
+import type { BlockRef } from '../value';
+import { Code } from '../codes';
+import type { Offsets } from './evaluate';
+
+/**
+ * A toleranced input somewhere up the chain (a crystal's `frequency ±20 ppm`). Its id is the same in every
+ * block that reaches it, so two references that share a source move together in the worst case and in
+ * Monte Carlo: shared sources stay correlated, independent ones vary independently.
+ */
+export interface UpstreamInput {
+  id: string;
+  /** `@xtal.frequency`, for shares in the hover. */
+  label: string;
+}
+
+/** What an analysed block offers the blocks that reference it. */
+export interface BlockOutput {
+  uri: string;
+  name: string;
+  /** 1-based line of the block's header. */
+  line: number;
+  circuit: string;
+  /** Nominal results, as the block's analysis reports them. */
+  values: Readonly<Record<string, number>>;
+  results: readonly ResultSpec[];
+  /** Toleranced inputs, its own and those upstream of it, that move its results. */
+  inputs: readonly UpstreamInput[];
+  /** Results with the inputs at the given offsets (keyed by input id, absent = nominal); undefined when they break the model. */
+  at(offsets: Offsets): Readonly<Record<string, number>> | undefined;
+  /** Changes whenever anything its results depend on changes: caches of dependants compare it. */
+  fingerprint: string;
+}
+
+export type ReferenceLookup = { ok: true; output: BlockOutput; result: string; dim: Dim } | { ok: false; code: string; message: string };
+
+/** Where a block's `@name` references resolve from. */
+export interface ReferenceSource {
+  resolve(ref: BlockRef): ReferenceLookup;
+}
+
+export const noReferences: ReferenceSource = {
+  resolve: (ref) => ({ ok: false, code: Code.referenceUnknown, message: `\`@${ref.block}\`: no block of that name is known here` }),
+};
+
+/** The dimension a result has inside another block's arithmetic: fractions shown as percent read as percent. */
+export function resultDim(spec: ResultSpec): Dim {
+  return spec.percent ? '%' : spec.dim;
+}
+
+/** Checks the result a reference names against the block it found; the lookup the plan uses. */
+export function lookupResult(ref: BlockRef, output: BlockOutput | undefined, problem: string | undefined): ReferenceLookup {
+  const shown = `\`@${ref.block}${ref.result ? `.${ref.result}` : ''}\``;
+  if (!output) {
+    return { ok: false, code: Code.referenceResult, message: `${shown}: block \`${ref.block}\` has no results to give${problem ? ` (${problem})` : ''}` };
+  }
+  const list = output.results.map((r) => `\`${r.key}\``).join(', ');
+  const result = ref.result ?? 'frequency';
+  const spec = output.results.find((r) => r.key === result);
+  if (!spec) {
+    const message = ref.result
+      ? `${shown}: ${output.circuit} block \`${ref.block}\` has no result \`${result}\` (its results: ${list})`
+      : `${shown} stands for a frequency, and ${output.circuit} block \`${ref.block}\` has none: name a result, one of ${list}`;
+    return { ok: false, code: Code.referenceResult, message };
+  }
+  if (!(result in output.values)) {
+    return { ok: false, code: Code.referenceResult, message: `${shown}: block \`${ref.block}\` did not compute its \`${result}\`` };
+  }
+  return { ok: true, output, result, dim: resultDim(spec) };
+}
