@@ -27,7 +27,7 @@ export interface BlockContext {
   /** Where `@name` references resolve (the workspace pass); none when absent. */
   references?: ReferenceSource;
   /** Told the plan once the block's results are computed, so dependants can evaluate it at their offsets. */
-  computed?: (plan: Plan, overrides: Readonly<Record<string, number>>) => void;
+  computed?: (plan: Plan, overrides: Readonly<Record<string, number>>, values: Readonly<Record<string, number>>) => void;
 }
 
 const dataModels: readonly DataModelName[] = ['ilp32', 'lp64', 'ip16'];
@@ -116,7 +116,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     return analysis;
   }
 
-  context.computed?.(plan, overrides);
+  context.computed?.(plan, overrides, analysis.values);
   const keys = tolerancedKeys(plan);
   if (keys.length) {
     const spread = worstCase(plan, keys, overrides);

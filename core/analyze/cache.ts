@@ -17,7 +17,7 @@ interface Entry {
   /** Every block reference it resolved, with the upstream block's fingerprint (or the problem) it got. */
   references: Array<{ ref: BlockRef; answer: string }>;
   /** The plan its results came from, handed to the workspace again when the analysis is reused. */
-  computed?: [Plan, Readonly<Record<string, number>>];
+  computed?: [Plan, Readonly<Record<string, number>>, Readonly<Record<string, number>>];
   generation: number;
 }
 
@@ -76,9 +76,9 @@ export class AnalysisCache {
           return found;
         },
       },
-      computed: (plan, overrides) => {
-        computed = [plan, overrides];
-        context.computed?.(plan, overrides);
+      computed: (plan, overrides, values) => {
+        computed = [plan, overrides, values];
+        context.computed?.(plan, overrides, values);
       },
     });
     this.entries.set(key, { span: raw.span, uri: context.uri, analysis, lookups: recorder.lookups, references, computed, generation: this.generation });

@@ -55,8 +55,8 @@ export function analyzeWorkspace(docs: readonly TextDocumentLike[], options: Ana
       const context: BlockContext = {
         ...item.context,
         references,
-        computed: (plan, overrides) => {
-          if (item.raw.name !== undefined) outputs[v] = outputOf(plan, overrides, item.context, item.raw.name);
+        computed: (plan, overrides, values) => {
+          if (item.raw.name !== undefined) outputs[v] = outputOf(plan, overrides, values, item.context, item.raw.name);
         },
       };
       const cache = caches.get(doc);
@@ -85,11 +85,10 @@ function shownPath(uri: string, options: AnalyzeOptions): string {
  * A computed block as a source for its dependants. Its own toleranced keys become inputs with ids unique in the
  * workspace (file and name), so every dependant varies the same crystal as one input.
  */
-function outputOf(plan: Plan, overrides: Readonly<Record<string, number>>, context: BlockContext, name: string): BlockOutput {
+function outputOf(plan: Plan, overrides: Readonly<Record<string, number>>, values: Readonly<Record<string, number>>, context: BlockContext, name: string): BlockOutput {
   const own = ownTolerancedKeys(plan).map((key) => ({ key, id: `${context.uri}#${name}.${key}`, label: `@${name}.${key}` }));
   const inputs = [...own.map(({ id, label }) => ({ id, label }))];
   for (const input of plan.upstreamInputs) if (!inputs.some((i) => i.id === input.id)) inputs.push(input);
-  const nominal = computeAt(plan, undefined, overrides) ?? {};
   let memoEpoch = -1;
   let memo: Readonly<Record<string, number>> | undefined;
   return {
@@ -97,7 +96,7 @@ function outputOf(plan: Plan, overrides: Readonly<Record<string, number>>, conte
     name,
     line: context.line,
     circuit: plan.model.id,
-    values: nominal,
+    values,
     results: circuitById(plan.model.id)?.results ?? plan.model.results,
     inputs,
     fingerprint: '',
