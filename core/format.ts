@@ -1,4 +1,6 @@
-// Engineering notation for display: exponent a multiple of 3 with an SI prefix, trimmed significant figures.
+// Engineering notation for display: exponent a multiple of 3 with an SI prefix, trimmed significant figures;
+// and a circuit's results as they read everywhere (lens, hover, CLI, preview, panel, finding messages).
+import type { CircuitModel } from './circuits/model';
 
 /** U+2212: a real minus sign for display; the value parser reads it back. */
 export const MINUS = '\u2212';
@@ -74,4 +76,23 @@ export function formatSignedPercent(fraction: number, sig = 3): string {
   if (!Number.isFinite(fraction)) return NOT_A_NUMBER;
   const text = formatPercent(fraction, sig);
   return fraction > 0 && text !== '0 %' ? `+${text}` : text;
+}
+
+export function formatResult(model: CircuitModel, key: string, value: number): string {
+  const spec = model.results.find((r) => r.key === key);
+  // An error is a signed deviation; a duty is a plain share.
+  if (spec?.percent) return key === 'error' ? formatSignedPercent(value) : formatPercent(value);
+  // Baud rates are read as whole numbers in the trade (9600, 115200), not with prefixes.
+  if (key === 'baud') return formatBaud(value);
+  // Below 1 Hz a prefix misleads: "500 mHz" is read as MHz at a glance. Long times stay in seconds, not ks.
+  if (spec?.dim === 'Hz' && Math.abs(value) < 1 && value !== 0) return `${formatNumber(value, 4)} Hz`;
+  if (spec?.dim === 's' && Math.abs(value) >= 1000) return `${formatNumber(value, 4)} s`;
+  // Counts and register values are whole numbers a firmware engineer compares digit by digit.
+  if (!spec?.dim && Number.isInteger(value) && Math.abs(value) < 1e15) return String(value);
+  return formatQuantity(value, spec?.dim ?? '');
+}
+
+/** A firmware constant as the compiler sees it: whole numbers in full, others in engineering form. */
+export function formatConstant(value: number): string {
+  return Number.isInteger(value) && Math.abs(value) < 1e15 ? String(value) : formatQuantity(value, '');
 }

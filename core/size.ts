@@ -2,5 +2,20 @@
 export function isTooLarge(text: string, maxBytes: number): boolean {
   if (text.length > maxBytes) return true;
   if (text.length * 3 <= maxBytes) return false;
-  return Buffer.byteLength(text, 'utf8') > maxBytes;
+  return utf8Bytes(text) > maxBytes;
+}
+
+/** Bytes of `text` in UTF-8 (RFC 3629): 1 to 3 per UTF-16 unit, 4 per surrogate pair, 3 for a lone surrogate (U+FFFD). */
+export function utf8Bytes(text: string): number {
+  let bytes = 0;
+  for (let i = 0; i < text.length; i++) {
+    const unit = text.charCodeAt(i);
+    if (unit < 0x80) bytes += 1;
+    else if (unit < 0x800) bytes += 2;
+    else if (unit >= 0xd800 && unit <= 0xdbff && i + 1 < text.length && (text.charCodeAt(i + 1) & 0xfc00) === 0xdc00) {
+      bytes += 4;
+      i++;
+    } else bytes += 3;
+  }
+  return bytes;
 }

@@ -127,6 +127,9 @@ export interface BlockReference {
 }
 
 /** Everything the engine says about one block: the CLI's JSON and the editor's lens, hover and diagnostics. */
+/** Allowed integers: an explicit list, or an inclusive range. */
+export type IntegerSet = { kind: 'list'; values: number[] } | { kind: 'range'; min: number; max: number };
+
 export interface BlockAnalysis {
   /** Name as written, or `circuit@line`. */
   name: string;
@@ -139,6 +142,8 @@ export interface BlockAnalysis {
   params: Record<string, number>;
   /** Word-valued parameters (`mode`, `diode`, `series`). */
   choices: Record<string, string>;
+  /** Sets of allowed integers (`prescalers: 1, 8, 64`), as the model was given them. */
+  lists: Record<string, IntegerSet>;
   /** Results that could be computed; never NaN or infinite. */
   values: Record<string, number>;
   spread?: Record<string, SpreadRange>;

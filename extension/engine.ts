@@ -33,8 +33,7 @@ export const tooLargeAnalysis: typeof Engine.tooLargeAnalysis = (...args) => cor
 export const formatHeadline: typeof Engine.formatHeadline = (...args) => core().formatHeadline(...args);
 export const blockHoverMarkdown: typeof Engine.blockHoverMarkdown = (...args) => core().blockHoverMarkdown(...args);
 export const waveformFor: typeof Engine.waveformFor = (...args) => core().waveformFor(...args);
-export const bandText: typeof Engine.bandText = (...args) => core().bandText(...args);
-export const formatResult: typeof Engine.formatResult = (...args) => core().formatResult(...args);
+export const blockView: typeof Engine.blockView = (...args) => core().blockView(...args);
 export const renderWaveformSvg: typeof Engine.renderWaveformSvg = (...args) => core().renderWaveformSvg(...args);
 export const blockCompletions: typeof Engine.blockCompletions = (...args) => core().blockCompletions(...args);
 export const blockTemplate: typeof Engine.blockTemplate = (...args) => core().blockTemplate(...args);

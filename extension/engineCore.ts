@@ -8,7 +8,7 @@ export { Analyzer, analyzeDocument, tooLargeAnalysis, type AnalyzeOptions, type 
 export { headline as formatHeadline } from '../core/present/values';
 export { hoverMarkdown as blockHoverMarkdown } from '../core/present/hover';
 export { waveformFor, defaultCycles } from '../core/present/waveform';
-export { bandText, formatResult } from '../core/present/values';
+export { blockView } from '../core/present/view';
 export { renderWaveformSvg, type WaveformSvgOptions } from '../core/wave/svg';
 export { blockCompletions, type CompletionEntry } from '../core/present/completion';
 export { blockTemplate, type TemplateLine } from '../core/present/template';

@@ -2,11 +2,11 @@
 // and a small waveform, with the block's own text folded underneath. Everything from the note is escaped.
 import type MarkdownItConstructor = require('markdown-it');
 import * as vscode from 'vscode';
-import { Code } from '../core/codes';
 import { firmwareEntry } from '../core/analyze/keys';
 import type { BlockAnalysis } from '../core/types';
 import type { AnalysisStore } from './analysisStore';
-import { analyzeDocument, bandText, circuitModel, formatResult, renderWaveformSvg, waveformFor } from './engine';
+import { analyzeDocument, blockView, renderWaveformSvg, waveformFor } from './engine';
+import { cautionMark, severityMark, severityWord } from '../core/present/marks';
 import { readSettings } from './settings';
 
 // The typings export the constructor only; the instance type is what it builds.
@@ -64,36 +64,25 @@ export function previewBlockOf(store: AnalysisStore, fence: TimingFence): Previe
 export function renderTimingBlock(md: MarkdownIt, block: PreviewBlock, fence: TimingFence): string {
   const esc = md.utils.escapeHtml;
   const analysis = block.analysis;
-  const model = circuitModel(analysis?.circuit);
+  // The presented block (core/present/view.ts), the same the hover and the panel show.
+  const view = analysis ? blockView(analysis) : undefined;
   const out: string[] = ['<div class="tickmark-block">'];
-  const title = model ? ` — ${esc(model.title)}` : '';
-  out.push(`<table class="tickmark-results"><caption><strong>${esc(analysis?.name ?? 'timing block')}</strong>${title}</caption>`);
-  if (analysis && model && Object.keys(analysis.values).length > 0) {
-    out.push('<thead><tr><th>result</th><th>value</th><th>worst case</th></tr></thead><tbody>');
-    for (const spec of model.results) {
-      const value = analysis.values[spec.key];
-      if (value === undefined) continue;
-      const band = analysis.spread?.[spec.key];
-      // A band whose ends print alike ("45.3–45.3 %") says nothing the value does not.
-      const spread = band && formatResult(model, spec.key, band.min) !== formatResult(model, spec.key, band.max) ? bandText(model, spec.key, band.min, band.max) : '';
-      out.push(`<tr><td>${esc(spec.label)}</td><td>${esc(formatResult(model, spec.key, value))}</td><td>${esc(spread)}</td></tr>`);
-    }
-    for (const [key, part] of Object.entries(analysis.solved ?? {})) {
-      const param = model.params.find((p) => p.key === key);
-      const dim = param?.kind === 'quantity' ? param.dim : '';
-      const value = formatResult({ ...model, results: [{ key, label: key, dim }] }, key, part.value);
-      out.push(`<tr><td>solved ${esc(key)}</td><td>${esc(value)}${part.series ? ` (${esc(part.series)})` : ''}</td><td></td></tr>`);
-    }
+  const title = view?.modelled ? ` — ${esc(view.title)}` : '';
+  out.push(`<table class="tickmark-results"><caption><strong>${esc(view?.name ?? 'timing block')}</strong>${title}</caption>`);
+  if (view && (view.results.length > 0 || view.solved.length > 0)) {
+    const header = ['result', 'value', 'worst case', ...(view.hasPercentiles ? ['1–99 % of samples'] : [])];
+    out.push(`<thead><tr>${header.map((h) => `<th>${esc(h)}</th>`).join('')}</tr></thead><tbody>`);
+    const cells = (texts: string[]) => `<tr>${texts.map((t) => `<td>${esc(t)}</td>`).join('')}</tr>`;
+    for (const row of view.results) out.push(cells([row.label, row.value, row.worstCase, ...(view.hasPercentiles ? [row.percentiles] : [])]));
+    for (const row of view.solved) out.push(cells([`solved ${row.key}`, row.value, '', ...(view.hasPercentiles ? [''] : [])]));
     out.push('</tbody>');
   }
   out.push('</table>');
-  const findings = analysis?.findings ?? [];
-  if (findings.length > 0) {
-    const mark = { error: '⛔', warning: '⚠️', info: 'ℹ️' } as const;
+  if (view && (view.problems.length || view.cautions.length || view.notes.length)) {
     out.push('<ul class="tickmark-findings">');
     // Cautions lead, as in the hover: a hazardous voltage or a watchdog matters more than the third decimal.
-    for (const f of findings) if (f.code === Code.caution) out.push(`<li>⚠️ Caution: ${esc(f.message)}</li>`);
-    for (const f of findings) if (f.code !== Code.caution) out.push(`<li>${mark[f.severity]} ${esc(f.severity)}: ${esc(f.message)}</li>`);
+    for (const caution of view.cautions) out.push(`<li>${cautionMark} Caution: ${esc(caution)}</li>`);
+    for (const f of [...view.problems, ...view.notes]) out.push(`<li>${severityMark[f.severity]} ${esc(severityWord[f.severity])}: ${esc(f.message)}</li>`);
     out.push('</ul>');
   }
   if (!analysis) out.push('<p><em>No timing block could be read from this fence.</em></p>');

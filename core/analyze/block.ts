@@ -44,6 +44,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     block: raw,
     params: {},
     choices: {},
+    lists: {},
     values: {},
     identifiers: [],
     findings,
@@ -78,6 +79,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   findings.push(...seriesFindings(raw, model, context.uri));
   analysis.identifiers = plan.identifiers;
   analysis.choices = { ...plan.choices };
+  analysis.lists = { ...plan.lists };
   const blocked = () => findings.some((f) => f.severity === 'error');
 
   const overrides: Record<string, number> = {};

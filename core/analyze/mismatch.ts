@@ -3,14 +3,13 @@
 import type { BlockAnalysis, Fix, Finding } from '../types';
 import { isSearchFailure } from '../circuits/model';
 import { Code } from '../codes';
-import { formatSignedPercent } from '../format';
+import { formatResult, formatSignedPercent } from '../format';
 import type { BlockContext } from './block';
 import { meetsClaim, type Claim } from './claims';
 import { computeAt, modelInput } from './measure';
 import type { Plan, Slot } from './plan';
 import { evaluateParams } from './evaluate';
 import { solveContinuous } from './solve';
-import { formatResult } from '../present/values';
 
 export function checkClaims(analysis: BlockAnalysis, plan: Plan, claims: Claim[], overrides: Record<string, number>, context: BlockContext, findings: Finding[]): void {
   for (const claim of claims) {

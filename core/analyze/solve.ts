@@ -3,8 +3,7 @@
 import type { QuantityParam } from '../circuits/model';
 import { nearestInSeries, parseSeriesName, type SeriesName } from '../series';
 import { computeAt } from './measure';
-import { formatQuantity } from '../format';
-import { formatResult } from '../present/values';
+import { formatQuantity, formatResult } from '../format';
 import type { Plan } from './plan';
 
 export type SolveOutcome =

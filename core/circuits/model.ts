@@ -46,8 +46,8 @@ export interface ListParam {
 
 export type ParamSpec = QuantityParam | ChoiceParam | ListParam;
 
-/** Allowed integers: an explicit list, or an inclusive range. */
-export type IntegerSet = { kind: 'list'; values: number[] } | { kind: 'range'; min: number; max: number };
+export type { IntegerSet } from '../types';
+import type { IntegerSet } from '../types';
 
 /** Resolved inputs of a model. */
 export interface ModelInput {

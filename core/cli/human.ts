@@ -1,6 +1,6 @@
 // The report a person reads in a terminal or a CI log: `file:line: severity: message`, a summary per block.
 import type { Finding } from '../types';
-import { headline } from '../present/values';
+import { blockView, severityWord } from '../present/view';
 import { displayPath } from './files';
 import { locate } from './locate';
 import type { CheckedFile } from './run';
@@ -25,9 +25,6 @@ export function printable(text: string): string {
   return text.replace(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200e\u200f\u202a-\u202e\u2066-\u2069]/g, (ch) => `\\u${ch.charCodeAt(0).toString(16).padStart(4, '0')}`);
 }
 
-/** Severities as SARIF names its levels (`info` is a `note`), so the log, the summary and code scanning agree. */
-const severityWord: Record<Finding['severity'], string> = { error: 'error', warning: 'warning', info: 'note' };
-
 export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): string {
   const lines: string[] = [];
   let blocks = 0;
@@ -44,7 +41,8 @@ export function humanReport(checked: CheckedFile[], cwd: string, paint: Paint): 
       // The block's status is the worst severity among its findings, in the words the finding lines use.
       const worst = block.findings.some((f) => f.severity === 'error') ? 'error' : block.findings.some((f) => f.severity === 'warning') ? 'warning' : 'ok';
       const mark = worst === 'ok' ? paint.dim('ok') : paint.severity(worst, worst);
-      lines.push(`${printable(file.display)}:${block.line}: ${paint.bold(printable(block.name))} (${printable(block.circuit ?? 'no circuit')}) ${mark} — ${printable(headline(block))}`);
+      const view = blockView(block);
+      lines.push(`${printable(file.display)}:${view.line}: ${paint.bold(printable(view.name))} (${printable(view.circuit ?? 'no circuit')}) ${mark} — ${printable(view.headline)}`);
       for (const finding of block.findings) lines.push(line(finding, file));
     }
   }

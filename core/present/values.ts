@@ -2,36 +2,15 @@
 import type { BlockAnalysis } from '../types';
 import type { CircuitModel } from '../circuits/model';
 import { circuitById } from '../circuits/registry';
-import { formatBaud, formatNumber, formatPercent, formatQuantity, formatSignedPercent } from '../format';
-
-export function formatResult(model: CircuitModel, key: string, value: number): string {
-  const spec = model.results.find((r) => r.key === key);
-  // An error is a signed deviation; a duty is a plain share.
-  if (spec?.percent) return key === 'error' ? formatSignedPercent(value) : formatPercent(value);
-  // Baud rates are read as whole numbers in the trade (9600, 115200), not with prefixes.
-  if (key === 'baud') return formatBaud(value);
-  // Below 1 Hz a prefix misleads: "500 mHz" is read as MHz at a glance. Long times stay in seconds, not ks.
-  if (spec?.dim === 'Hz' && Math.abs(value) < 1 && value !== 0) return `${formatNumber(value, 4)} Hz`;
-  if (spec?.dim === 's' && Math.abs(value) >= 1000) return `${formatNumber(value, 4)} s`;
-  // Counts and register values are whole numbers a firmware engineer compares digit by digit.
-  if (!spec?.dim && Number.isInteger(value) && Math.abs(value) < 1e15) return String(value);
-  return formatQuantity(value, spec?.dim ?? '');
-}
-
-/** A firmware constant as the compiler sees it: whole numbers in full, others in engineering form. */
-export function formatConstant(value: number): string {
-  return Number.isInteger(value) && Math.abs(value) < 1e15 ? String(value) : formatQuantity(value, '');
-}
-
-export function resultLabel(model: CircuitModel, key: string): string {
-  return model.results.find((r) => r.key === key)?.label ?? key;
-}
+import { formatConstant, formatQuantity, formatResult } from '../format';
+import { severityMark } from './marks';
+export { formatConstant, formatResult };
 
 /** The code lens line: headline numbers, the worst-case band of the first, or the block's first error. */
 export function headline(analysis: BlockAnalysis): string {
   const error = analysis.findings.find((f) => f.severity === 'error');
   // The same mark as the hover and the preview give an error.
-  if (error) return `⛔ ${error.message}`;
+  if (error) return `${severityMark.error} ${error.message}`;
   const model = analysis.circuit ? circuitById(analysis.circuit) : undefined;
   if (!model) return analysis.name;
   const parts: string[] = [];
@@ -59,7 +38,7 @@ export function headline(analysis: BlockAnalysis): string {
  * The model's headline order, except that below 1 Hz the period leads: a 2 s watchdog timeout is read as a
  * time, not as 0.5 Hz.
  */
-export function headlineKeys(model: CircuitModel, values: Readonly<Record<string, number>>): readonly string[] {
+function headlineKeys(model: CircuitModel, values: Readonly<Record<string, number>>): readonly string[] {
   const keys = model.headline;
   const f = keys.indexOf('frequency');
   const t = keys.indexOf('period');

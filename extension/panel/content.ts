@@ -1,24 +1,20 @@
-// What the panel is told about one block: formatted results from the core and the sampled waveform.
+// What the panel is told about one block: the presented block from the core (core/present/view.ts) and the
+// sampled waveform.
 import type { BlockAnalysis } from '../../core/types';
 import type { HostMessage, PanelBlock } from '../../media/messages';
-import { circuitModel, defaultCycles, formatHeadline, formatResult, waveformFor } from '../engine';
+import { blockView, defaultCycles, waveformFor } from '../engine';
 
 export function panelBlock(uri: string, analysis: BlockAnalysis): PanelBlock {
-  const model = circuitModel(analysis.circuit);
-  const results = model
-    ? model.results
-        .filter((spec) => analysis.values[spec.key] !== undefined)
-        .map((spec) => ({ key: spec.key, label: spec.label, text: formatResult(model, spec.key, analysis.values[spec.key]) }))
-    : [];
+  const view = blockView(analysis);
   return {
     uri,
-    name: analysis.name,
-    circuit: analysis.circuit,
-    title: model?.title,
-    line: analysis.line,
-    headline: formatHeadline(analysis),
+    name: view.name,
+    circuit: view.circuit,
+    title: view.modelled ? view.title : undefined,
+    line: view.line,
+    headline: view.headline,
     values: { ...analysis.values },
-    results,
+    results: view.results.map((row) => ({ key: row.key, label: row.label, text: row.value })),
     findings: analysis.findings.map((f) => ({ severity: f.severity, message: f.message })),
   };
 }

@@ -1,6 +1,7 @@
 import { strict as assert } from 'assert';
 import { bandText, headline } from '../../core/present/values';
-import { hoverMarkdown } from '../../core/present/hover';
+import { escapeMarkdown, hoverMarkdown } from '../../core/present/hover';
+import { blockView } from '../../core/present/view';
 import { circuitById } from '../../core/circuits/registry';
 import { noteBlock } from '../helpers/analyze';
 
@@ -40,5 +41,33 @@ describe('how results read', () => {
     const upDown = hoverMarkdown(noteBlock(['circuit: timer', 'clock: 1 MHz', 'prescaler: 1', 'reload: 999', 'mode: up-down']));
     assert.match(upDown, /mode up-down: 0 → reload → 0/);
     assert.doesNotMatch(upDown, /mode up: /);
+  });
+});
+
+describe('one presented block', () => {
+  // Schmitt trigger, 47 kΩ ±1 %, 100 nF ±10 %: the period τ·[ln(…)+ln(…)] moves with R·C, so its worst case spans
+  // (0.99·0.9 … 1.01·1.1) of nominal (RC charging law, common practice); Monte Carlo percentiles lie inside it.
+  const lines = ['circuit: schmitt-rc', 'supply: 3.3 V', 'vt+: 2 V', 'vt-: 1.1 V', 'r: 47k ±1%', 'c: 100n ±10%', 'samples: 2000'];
+
+  it('gives the hover, the CLI line and the lens the same rows and headline', () => {
+    const block = noteBlock(lines);
+    const view = blockView(block);
+    assert.equal(view.headline, headline(block));
+    assert.deepEqual(view.results.map((r) => r.key), ['high', 'low', 'period', 'frequency', 'duty', 'first-edge']);
+    const hover = hoverMarkdown(block);
+    for (const row of view.results) assert.ok(hover.includes(`| ${escapeMarkdown(row.label)} | ${row.value} | ${row.worstCase} | ${row.percentiles} |`), row.key);
+  });
+
+  it('shows the 1st to 99th percentiles of `samples:` in the hover, inside the worst case', () => {
+    const block = noteBlock(lines);
+    const view = blockView(block);
+    assert.ok(view.hasPercentiles);
+    assert.match(hoverMarkdown(block), /\| result \| value \| worst case \| 1–99 % of samples \|/);
+    const period = block.spread!.period;
+    const nominal = block.values.period;
+    assert.ok(Math.abs(period.min / (nominal * 0.99 * 0.9) - 1) < 1e-9 && Math.abs(period.max / (nominal * 1.01 * 1.1) - 1) < 1e-9);
+    assert.ok(period.min < period.p1! && period.p1! < nominal && nominal < period.p99! && period.p99! < period.max);
+    assert.equal(view.results.find((r) => r.key === 'period')!.percentiles, bandText(circuitById('schmitt-rc')!, 'period', period.p1!, period.p99!));
+    assert.equal(blockView(noteBlock(lines.slice(0, -1))).hasPercentiles, false);
   });
 });
