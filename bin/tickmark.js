@@ -44,16 +44,11 @@ if (process.argv[2] === 'lsp') {
   return;
 }
 
-let main;
+let cli;
 if (bundleIsCurrent()) {
-  main = require(bundle).main;
+  cli = require(bundle);
 } else {
   require('tsx/cjs');
-  main = require(source).main;
+  cli = require(source);
 }
-process.exitCode = main(process.argv.slice(2), {
-  out: (t) => process.stdout.write(t),
-  err: (t) => process.stderr.write(t),
-  cwd: process.cwd(),
-  color: Boolean(process.stdout.isTTY) && !process.env.NO_COLOR,
-});
+process.exitCode = cli.main(process.argv.slice(2), cli.processIo());

@@ -1,19 +1,100 @@
-// Which files a check reads: the paths given, folders walked for notes and C-family sources.
+// Which files a check reads: the paths given, folders walked for notes and C-family sources with `.gitignore`
+// honoured as git reads it, quoted globs expanded, `--exclude` globs left out.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
+import ignore, { type Ignore } from 'ignore';
+import picomatch from 'picomatch';
 
 const extensions = new Set(['.md', '.markdown', '.c', '.h', '.cc', '.cpp', '.cxx', '.hpp', '.hh']);
+/** The file types a check reads, as glob extensions (also the editor's workspace check). */
+export const timingHostExtensions = [...extensions].map((e) => e.slice(1));
 const skippedFolders = new Set(['node_modules', '.git', 'out', 'dist', 'build']);
 
 export function isTimingHost(file: string): boolean {
   return extensions.has(path.extname(file).toLowerCase());
 }
 
+export interface CollectOptions {
+  /** Globs (picomatch) of files and folders to leave out, relative to the working folder. */
+  exclude?: string[];
+}
+
+/** One folder's ignore rules: git reads `.gitignore` patterns relative to the folder that holds the file. */
+interface IgnoreLevel {
+  base: string;
+  rules: Ignore;
+}
+
+function readIgnoreFile(file: string): Ignore | undefined {
+  let text: string;
+  try {
+    text = fs.readFileSync(file, 'utf8');
+  } catch {
+    return undefined;
+  }
+  return ignore().add(text);
+}
+
+/**
+ * The ignore levels above a folder that is walked: the repository's `.git/info/exclude` and the `.gitignore`
+ * files from the repository root (the nearest folder holding `.git`) down to the folder's parent. The folder's
+ * own `.gitignore` is read by the walk. Outside a repository there are none above it.
+ */
+function ancestorLevels(folder: string): IgnoreLevel[] {
+  if (fs.existsSync(path.join(folder, '.git'))) return infoExclude(folder);
+  const chain: string[] = [];
+  for (let dir = path.dirname(folder); ; dir = path.dirname(dir)) {
+    chain.unshift(dir);
+    if (fs.existsSync(path.join(dir, '.git'))) {
+      const levels = infoExclude(dir);
+      for (const above of chain) {
+        const rules = readIgnoreFile(path.join(above, '.gitignore'));
+        if (rules) levels.push({ base: above, rules });
+      }
+      return levels;
+    }
+    if (path.dirname(dir) === dir) return [];
+  }
+}
+
+function infoExclude(root: string): IgnoreLevel[] {
+  const rules = readIgnoreFile(path.join(root, '.git', 'info', 'exclude'));
+  return rules ? [{ base: root, rules }] : [];
+}
+
+/** Whether git would ignore `full`: the deepest level that says anything decides (`!pattern` re-includes). */
+function ignoredBy(levels: IgnoreLevel[], full: string, isFolder: boolean): boolean {
+  let ignored = false;
+  for (const level of levels) {
+    const relative = path.relative(level.base, full).split(path.sep).join('/');
+    if (!relative || relative.startsWith('..')) continue;
+    const verdict = level.rules.test(isFolder ? relative + '/' : relative);
+    if (verdict.ignored) ignored = true;
+    else if (verdict.unignored) ignored = false;
+  }
+  return ignored;
+}
+
+const globCharacters = /[*?[\]{}]/;
+
+/** Whether a path argument is a glob to expand (quoted so the shell left it alone) rather than a name. */
+function isGlob(given: string, cwd: string): boolean {
+  return globCharacters.test(given) && !fs.existsSync(path.resolve(cwd, given));
+}
+
 /** Files under the given paths, sorted; an unreadable path is returned as a problem (exit 2). */
-export function collectFiles(paths: string[], cwd: string): { files: string[]; problems: string[] } {
+export function collectFiles(paths: string[], cwd: string, options: CollectOptions = {}): { files: string[]; problems: string[] } {
   const files = new Set<string>();
   const problems: string[] = [];
+  const isExcluded = excluder(options.exclude ?? [], cwd);
+  const walker = new Walker(files, isExcluded);
   for (const given of paths) {
+    if (isGlob(given, cwd)) {
+      const before = files.size;
+      expandGlob(given, cwd, walker);
+      if (files.size === before) problems.push(`no Markdown or C/C++ file matches ${given}`);
+      continue;
+    }
     const full = path.resolve(cwd, given);
     let stat: fs.Stats;
     try {
@@ -22,27 +103,78 @@ export function collectFiles(paths: string[], cwd: string): { files: string[]; p
       problems.push(`cannot read ${given}: no such file or folder`);
       continue;
     }
-    if (stat.isDirectory()) walk(full, files);
-    else if (stat.isFile() && isTimingHost(full)) files.add(full);
-    else if (stat.isFile()) problems.push(`cannot check ${given}: not a Markdown (.md .markdown) or C/C++ (.c .h .cc .cpp .cxx .hpp .hh) file`);
+    // A path named on the command line is read even when git ignores it; --exclude still applies.
+    if (stat.isDirectory()) walker.walk(full, ancestorLevels(full));
+    else if (stat.isFile() && isTimingHost(full)) {
+      if (!isExcluded(full)) files.add(full);
+    } else if (stat.isFile()) problems.push(`cannot check ${given}: not a Markdown (.md .markdown) or C/C++ (.c .h .cc .cpp .cxx .hpp .hh) file`);
     else problems.push(`cannot read ${given}: not a file or folder`);
   }
   return { files: [...files].sort(), problems };
 }
 
-function walk(folder: string, into: Set<string>): void {
-  let entries: fs.Dirent[];
+/**
+ * `--exclude` globs: one with a `/` matches the path relative to the working folder; one without matches a
+ * file or folder name at any depth (`vendor`, `*.gen.h`), as a `.gitignore` line does.
+ */
+function excluder(globs: string[], cwd: string): (full: string) => boolean {
+  if (globs.length === 0) return () => false;
+  const byPath = globs.filter((g) => g.includes('/')).map((g) => g.replace(/^\.\//, ''));
+  const byName = globs.filter((g) => !g.includes('/'));
+  const pathMatch = byPath.length ? picomatch(byPath, { dot: true }) : () => false;
+  const nameMatch = byName.length ? picomatch(byName, { dot: true }) : () => false;
+  return (full) => {
+    const relative = path.relative(cwd, full).split(path.sep).join('/');
+    return relative !== '' && (pathMatch(relative) || nameMatch(path.basename(full)));
+  };
+}
+
+/** A quoted glob: the folder before its first wildcard is walked, and the files the glob matches are kept. */
+function expandGlob(glob: string, cwd: string, walker: Walker): void {
+  const pattern = glob.split(path.sep).join('/');
+  const { base } = picomatch.scan(pattern);
+  const folder = path.resolve(cwd, base || '.');
+  if (!isFolder(folder)) return;
+  const matches = picomatch(pattern, { dot: false });
+  const absolute = path.isAbsolute(pattern);
+  walker.walk(folder, ancestorLevels(folder), (full) => matches(absolute ? full.split(path.sep).join('/') : path.relative(cwd, full).split(path.sep).join('/')));
+}
+
+function isFolder(dir: string): boolean {
   try {
-    entries = fs.readdirSync(folder, { withFileTypes: true });
+    return fs.statSync(dir).isDirectory();
   } catch {
-    return;
+    return false;
   }
-  for (const entry of entries) {
-    if (entry.name.startsWith('.') || skippedFolders.has(entry.name)) continue;
-    const full = path.join(folder, entry.name);
-    // Links are not followed: a link could lead out of the folder being checked.
-    if (entry.isDirectory()) walk(full, into);
-    else if (entry.isFile() && isTimingHost(entry.name)) into.add(path.resolve(full));
+}
+
+class Walker {
+  constructor(
+    private readonly into: Set<string>,
+    private readonly excluded: (full: string) => boolean,
+  ) {}
+
+  walk(folder: string, levels: IgnoreLevel[], keep: (full: string) => boolean = () => true): void {
+    let entries: fs.Dirent[];
+    try {
+      entries = fs.readdirSync(folder, { withFileTypes: true });
+    } catch {
+      return;
+    }
+    const own = readIgnoreFile(path.join(folder, '.gitignore'));
+    const here = own ? [...levels, { base: folder, rules: own }] : levels;
+    for (const entry of entries) {
+      if (entry.name.startsWith('.') || skippedFolders.has(entry.name)) continue;
+      const full = path.join(folder, entry.name);
+      // Links are not followed: a link could lead out of the folder being checked.
+      if (entry.isDirectory()) {
+        if (ignoredBy(here, full, true) || this.excluded(full)) continue;
+        this.walk(full, here, keep);
+      } else if (entry.isFile() && isTimingHost(entry.name)) {
+        if (ignoredBy(here, full, false) || this.excluded(full) || !keep(full)) continue;
+        this.into.add(path.resolve(full));
+      }
+    }
   }
 }
 

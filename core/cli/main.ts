@@ -2,7 +2,8 @@
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { parseArgs, last, type ParsedArgs } from './args';
-import { collectFiles, displayPath } from './files';
+import { collectFiles, displayPath, isTimingHost } from './files';
+import { wantsColor } from './color';
 import { checkFiles, cliOptions, rootsFor } from './run';
 import { ansiPaint, humanReport, noPaint } from './human';
 import { jsonReport } from './json';
@@ -20,6 +21,8 @@ export interface Io {
   err: (text: string) => void;
   cwd: string;
   color: boolean;
+  /** Standard input, read whole (for `check -`). */
+  stdin?: () => string;
 }
 
 const usage = `usage: tickmark <command> [options]
@@ -32,10 +35,12 @@ commands:
 run \`tickmark <command> --help\` for its options; \`tickmark --version\` prints the version
 `;
 
-const checkHelp = `usage: tickmark check [--format F | --json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] [--series S] [--max-size-kb N] PATH...
+const checkHelp = `usage: tickmark check [--format F | --json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] [--series S] [--max-size-kb N] [--exclude GLOB]... PATH...
 
-Scans Markdown notes and C/C++ files (folders are walked) for timing blocks, computes each,
-and prints \`file:line: severity: message\` per finding with a one-line summary per block.
+Scans Markdown notes and C/C++ files for timing blocks, computes each, and prints
+\`file:line:col: severity: message\` per finding with a one-line summary per block.
+A PATH is a file, a folder (walked, honouring .gitignore), a quoted glob ('notes/**/*.md'),
+or - for standard input.
 
   --format F        human (default), json, sarif, or github (workflow annotations)
   --json            the same as --format json: one JSON object (SI base units, 1-based lines)
@@ -45,6 +50,12 @@ and prints \`file:line: severity: message\` per finding with a one-line summary 
   --data-model M    integer widths for C constants: ilp32 (default), lp64, ip16
   --series S        default series for solved parts: E3 … E192 or none (default E24)
   --max-size-kb N   files above N KB are not read, with a warning (default 1024)
+  --exclude GLOB    leave out files and folders matching GLOB, relative to the working folder
+                    (repeatable; a GLOB without / matches names at any depth: --exclude vendor)
+  --stdin-name PATH the path standard input stands for: its type and where relative includes
+                    and firmware: files are found (default stdin.md, a note in the working folder)
+
+Colour: on a terminal, unless NO_COLOR is set or TERM=dumb; FORCE_COLOR=1 forces it, FORCE_COLOR=0 stops it.
 
 exit status: 0 nothing wrong, 1 a block has a warning or error, 2 usage error or unreadable path
 `;
@@ -125,7 +136,7 @@ function isFolder(dir: string): boolean {
 }
 
 function check(argv: string[], io: Io): number {
-  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, format: { value: true }, ...analysisFlags, ...commonFlags });
+  const args = parseArgs(argv, { json: { value: false }, sarif: { value: false }, format: { value: true }, exclude: { value: true }, 'stdin-name': { value: true }, ...analysisFlags, ...commonFlags });
   if (args.flags.has('help') || args.flags.has('h')) {
     io.out(checkHelp);
     return 0;
@@ -137,19 +148,36 @@ function check(argv: string[], io: Io): number {
   if (new Set(formats).size > 1) problems.push(`choose one output format, not ${[...new Set(formats)].join(' and ')}`);
   if (!outputFormats.includes(format)) problems.push(`--format takes ${outputFormats.join(', ')}, not ${format}`);
   if (args.positional.length === 0) problems.push('no PATH given');
-  const paths = args.positional.map((p) => path.resolve(io.cwd, p));
+  // Standard input stands for a file: its extension picks the scanner, its folder anchors relative paths.
+  const stdinName = last(args, 'stdin-name');
+  const stdinFile = path.resolve(io.cwd, stdinName ?? 'stdin.md');
+  const readsStdin = args.positional.includes('-');
+  if (args.positional.filter((p) => p === '-').length > 1) problems.push('- (standard input) can be given once');
+  if (stdinName !== undefined && !readsStdin) problems.push('--stdin-name names standard input; give - among the paths');
+  if (readsStdin && !isTimingHost(stdinFile)) problems.push(`--stdin-name ${stdinName}: not a Markdown (.md .markdown) or C/C++ (.c .h .cc .cpp .cxx .hpp .hh) file`);
+  const paths = args.positional.map((p) => (p === '-' ? path.dirname(stdinFile) : path.resolve(io.cwd, p)));
   const options = optionsFrom(args, io, paths);
   if (typeof options === 'string') problems.push(options);
   if (problems.length || typeof options === 'string') {
     io.err(problems.map((p) => `tickmark check: ${p}\n`).join('') + '\n' + checkHelp);
     return 2;
   }
-  const { files, problems: unreadable } = collectFiles(args.positional, io.cwd);
+  const exclude = args.flags.get('exclude') ?? [];
+  const { files, problems: unreadable } = collectFiles(args.positional.filter((p) => p !== '-'), io.cwd, { exclude });
+  const given = new Map<string, string>();
+  if (readsStdin) {
+    try {
+      given.set(stdinFile, (io.stdin ?? readStandardInput)());
+    } catch (err) {
+      unreadable.push(`cannot read standard input: ${(err as Error).message}`);
+    }
+    if (!files.includes(stdinFile)) files.push(stdinFile);
+  }
   if (unreadable.length) {
     io.err(unreadable.map((p) => `tickmark check: ${p}\n`).join(''));
     return 2;
   }
-  const checked = checkFiles(files, options, (file) => displayPath(file, io.cwd));
+  const checked = checkFiles(files, options, (file) => displayPath(file, io.cwd), given);
   if (format === 'json') io.out(jsonReport(checked, io.cwd));
   else if (format === 'sarif') io.out(sarifReport(checked, io.cwd, version));
   else if (format === 'github') io.out(githubReport(checked, io.cwd));
@@ -217,12 +245,19 @@ function wave(argv: string[], io: Io): number {
   return 0;
 }
 
-if (require.main === module) {
-  const code = main(process.argv.slice(2), {
+function readStandardInput(): string {
+  return fs.readFileSync(0, 'utf8');
+}
+
+/** The process's own streams and environment: what bin/tickmark.js passes to `main`. */
+export function processIo(): Io {
+  return {
     out: (t) => process.stdout.write(t),
     err: (t) => process.stderr.write(t),
     cwd: process.cwd(),
-    color: Boolean(process.stdout.isTTY) && !process.env.NO_COLOR,
-  });
-  process.exitCode = code;
+    color: wantsColor(process.env, Boolean(process.stdout.isTTY)),
+    stdin: readStandardInput,
+  };
 }
+
+if (require.main === module) process.exitCode = main(process.argv.slice(2), processIo());

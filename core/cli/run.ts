@@ -20,14 +20,18 @@ export function cliOptions(overrides: Partial<AnalyzeOptions>): AnalyzeOptions {
   return { ...base, read: overrides.read ?? ((file) => readText(file, maxFileBytes)), realpath: overrides.realpath ?? realPath };
 }
 
-/** Every file read first, then analysed together: `@name` references resolve across all of them. */
-export function checkFiles(files: string[], options: AnalyzeOptions, display: (file: string) => string): CheckedFile[] {
+/**
+ * Every file read first, then analysed together: `@name` references resolve across all of them. `given`: texts
+ * already in hand (standard input under its `--stdin-name`), read instead of the disk.
+ */
+export function checkFiles(files: string[], options: AnalyzeOptions, display: (file: string) => string, given?: ReadonlyMap<string, string>): CheckedFile[] {
   const readable: TextDocumentLike[] = [];
   const tooLarge = new Set<string>();
   for (const file of files) {
+    const held = given?.get(file);
     // A file above the size setting is not read at all: one notice, as the editor gives.
-    if (sizeOf(file) > options.maxFileBytes) tooLarge.add(file);
-    else readable.push({ uri: file, text: readText(file, options.maxFileBytes) ?? '', languageId: languageOf(file) });
+    if ((held === undefined ? sizeOf(file) : Buffer.byteLength(held)) > options.maxFileBytes) tooLarge.add(file);
+    else readable.push({ uri: file, text: held ?? readText(file, options.maxFileBytes) ?? '', languageId: languageOf(file) });
   }
   const analyses = new Map(analyzeWorkspace(readable, options).map((a) => [a.uri, a]));
   const texts = new Map(readable.map((d) => [d.uri, d.text]));

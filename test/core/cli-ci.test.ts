@@ -7,7 +7,9 @@ import * as os from 'node:os';
 import * as path from 'node:path';
 import Ajv from 'ajv';
 import addFormats from 'ajv-formats';
+import { spawnSync } from 'node:child_process';
 import { main } from '../../core/cli/main';
+import { wantsColor } from '../../core/cli/color';
 import { codeTable } from '../../core/codes';
 
 const made: string[] = [];
@@ -140,5 +142,94 @@ describe('tickmark check for CI', () => {
       assert.equal(r.code, 0);
       assert.equal(r.out, `${version}\n`);
     }
+  });
+});
+
+describe('tickmark check: what it reads', () => {
+  const note = (name: string) => ['```timing ' + name, 'circuit: timer', 'clock: 16 MHz', 'prescaler: 64', 'reload: 249', 'expect: 1 kHz', '```', ''].join('\n');
+  const names = (cwd: string, argv: string[]) => {
+    const json = JSON.parse(run(['check', '--json', ...argv], cwd).out);
+    return json.files.map((f: { path: string }) => f.path).sort();
+  };
+
+  it('honours .gitignore as git reads it: nested files, folder patterns, negation, the repository root above', () => {
+    const dir = workspace({
+      '.git/info/exclude': 'scratch.md\n',
+      '.gitignore': 'vendor/\n*.gen.h\n',
+      'scratch.md': note('scratch'),
+      'a.md': note('a'),
+      'vendor/sdk.h': '// @timing sdk\n// circuit: ring\n// stages: 4\n',
+      'fw/regs.gen.h': '// @timing gen\n// circuit: ring\n// stages: 4\n',
+      'fw/main.c': '// @timing main\n// circuit: timer\n// clock: 16 MHz\n// prescaler: 64\n// reload: 249\n',
+      'notes/.gitignore': 'draft-*.md\n!draft-keep.md\n',
+      'notes/draft-1.md': note('d1'),
+      'notes/draft-keep.md': note('dk'),
+    });
+    assert.deepEqual(names(dir, ['.']), ['a.md', 'fw/main.c', 'notes/draft-keep.md']);
+    // Walking a sub-folder still reads the .gitignore files above it, up to the repository root.
+    assert.deepEqual(names(path.join(dir, 'fw'), ['.']), ['main.c']);
+    // A file named on the command line is read even when git ignores it.
+    assert.deepEqual(names(dir, ['vendor/sdk.h']), ['vendor/sdk.h']);
+  });
+
+  it('leaves out --exclude globs, by path or by name at any depth', () => {
+    const dir = workspace({ 'a.md': note('a'), 'third_party/lib/x.h': '// @timing x\n// circuit: ring\n// stages: 4\n', 'notes/old/b.md': note('b'), 'notes/c.md': note('c') });
+    assert.deepEqual(names(dir, ['--exclude', 'third_party', '.']), ['a.md', 'notes/c.md', 'notes/old/b.md']);
+    assert.deepEqual(names(dir, ['--exclude', 'notes/old/**', '--exclude', '**/*.h', '.']), ['a.md', 'notes/c.md']);
+  });
+
+  it('expands a quoted glob, and says so when it matches nothing', () => {
+    const dir = workspace({ 'a.md': note('a'), 'notes/b.md': note('b'), 'notes/deep/c.md': note('c'), 'notes/d.c': '' });
+    assert.deepEqual(names(dir, ['notes/**/*.md']), ['notes/b.md', 'notes/deep/c.md']);
+    assert.deepEqual(names(dir, ['*.md']), ['a.md']);
+    const none = run(['check', 'nothing/**/*.md'], dir);
+    assert.equal(none.code, 2);
+    assert.match(none.err, /no Markdown or C\/C\+\+ file matches nothing\/\*\*\/\*\.md/);
+  });
+
+  it('reads standard input with -, typed and anchored by --stdin-name', () => {
+    const dir = workspace({ 'fw/board.h': '#define CLK 16000000u\n#define TOP 255u\n' });
+    const c = '#include "board.h"\n// @timing t\n// circuit: timer\n// clock: CLK\n// prescaler: 64\n// reload: TOP\n// expect: 1 kHz\n';
+    const r = (argv: string[], input: string) => {
+      let out = '';
+      let err = '';
+      const code = main(argv, { out: (t) => (out += t), err: (t) => (err += t), cwd: dir, color: false, stdin: () => input });
+      return { code, out, err };
+    };
+    // The include is found beside the name standard input stands for; 16 MHz / 64 / 256 misses 1 kHz.
+    const checked = r(['check', '--stdin-name', 'fw/tick.c', '-'], c);
+    assert.equal(checked.code, 1, checked.err);
+    assert.match(checked.out, /^fw\/tick\.c:7:\d+: warning: t: computes 976\.6 Hz/m);
+    // Without a name it is a note.
+    const md = r(['check', '--json', '-'], note('piped'));
+    assert.equal(md.code, 0, md.err);
+    assert.equal(JSON.parse(md.out).files[0].path, 'stdin.md');
+    assert.equal(r(['check', '--stdin-name', 'x.txt', '-'], '').code, 2);
+    assert.equal(r(['check', '--stdin-name', 'x.md', 'a.md'], '').code, 2);
+  });
+});
+
+describe('tickmark colour', () => {
+  // Node's documented order for terminal colour (tty getColorDepth): FORCE_COLOR, then NO_COLOR, then TERM=dumb.
+  it('follows FORCE_COLOR, NO_COLOR and TERM=dumb', () => {
+    assert.equal(wantsColor({}, true), true);
+    assert.equal(wantsColor({}, false), false);
+    assert.equal(wantsColor({ NO_COLOR: '1' }, true), false);
+    assert.equal(wantsColor({ NO_COLOR: '' }, true), true);
+    assert.equal(wantsColor({ TERM: 'dumb' }, true), false);
+    assert.equal(wantsColor({ FORCE_COLOR: '1' }, false), true);
+    assert.equal(wantsColor({ FORCE_COLOR: '1', NO_COLOR: '1', TERM: 'dumb' }, false), true);
+    assert.equal(wantsColor({ FORCE_COLOR: '0' }, true), false);
+  });
+
+  it('colours a pipe when the installed command is forced to', () => {
+    const dir = workspace({ 'stale.md': staleNote });
+    const bin = path.resolve(__dirname, '../../bin/tickmark.js');
+    const env: NodeJS.ProcessEnv = { ...process.env, FORCE_COLOR: '1' };
+    delete env.NO_COLOR;
+    const forced = spawnSync(process.execPath, [bin, 'check', 'stale.md'], { cwd: dir, encoding: 'utf8', env });
+    assert.match(forced.stdout, /\x1b\[33mwarning/);
+    const dumb = spawnSync(process.execPath, [bin, 'check', 'stale.md'], { cwd: dir, encoding: 'utf8', env: { ...env, FORCE_COLOR: '0' } });
+    assert.doesNotMatch(dumb.stdout, /\x1b\[/);
   });
 });
