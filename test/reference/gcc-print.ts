@@ -72,6 +72,9 @@ const BASE_FLAGS = ['-std=c11', '-pedantic', '-fno-diagnostics-show-caret', '-c'
 
 /** The diagnostics gcc gives an operation that is undefined or not constant (gcc 12 and avr-gcc 5.4 wording). */
 const REFUSAL = /overflow|shift count|shift of negative|requires \d+ bits to represent|not a constant expression|not constant|division by zero/;
+/** -Woverflow also reports a well-defined implicit conversion that wraps (C11 6.3.1.3): not a refusal. */
+const WRAPPING_CONVERSION = /changes value|implicitly truncated/;
+const refuses = (said: string): boolean => said.split('\n').some((line) => / (?:error|warning): /.test(line) && REFUSAL.test(line) && !WRAPPING_CONVERSION.test(line));
 
 /**
  * Compiles `expressions` (after `#include <stdint.h>` and `prelude`) with the target's reference compiler and reads
@@ -88,7 +91,7 @@ export function compileConstants(target: Target, options: CompileOptions): Compi
       if (run.values) {
         for (const i of pending) {
           const said = run.diagnostics.get(i);
-          results[i] = said && REFUSAL.test(said) ? { ok: false, diagnostic: said } : (run.values.get(i) as CompiledConstant);
+          results[i] = said && refuses(said) ? { ok: false, diagnostic: said } : (run.values.get(i) as CompiledConstant);
         }
         break;
       }
@@ -115,7 +118,7 @@ export function compileConstants(target: Target, options: CompileOptions): Compi
  * function at -O2, where the optimiser folds it, as an asm "i" operand that sets an absolute symbol.
  */
 function fallback(target: Target, options: CompileOptions, dir: string, i: number, diagnostic: string): CompiledConstant {
-  if (!/initializer element is not constant$/m.test(diagnostic) || REFUSAL.test(diagnostic.replace(/initializer element is not constant$/gm, ''))) return { ok: false, diagnostic };
+  if (!/initializer element is not constant$/m.test(diagnostic) || refuses(diagnostic.replace(/initializer element is not constant$/gm, ''))) return { ok: false, diagnostic };
   const run = compile(target, options, dir, [i], 'asm');
   return run.values && !run.diagnostics.has(i) ? (run.values.get(i) as CompiledConstant) : { ok: false, diagnostic };
 }
