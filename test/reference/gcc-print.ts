@@ -2,7 +2,7 @@
 // signedness, size and floating-ness are read back out of the object file the compiler wrote. Nothing the compiler
 // builds is executed, so the checks work for any target on any host.
 //
-//   lp64  → gcc on x86-64 (Debian 12)
+//   lp64  → gcc for x86-64 (Debian 12; on another host, its cross compiler x86_64-linux-gnu-gcc)
 //   ilp32 → arm-none-eabi-gcc -mcpu=cortex-m4 -mthumb (Debian 12, package gcc-arm-none-eabi)
 //   ip16  → avr-gcc -mmcu=avr5 (Debian 12, packages gcc-avr and avr-libc; avr5 is the generic core family)
 //
@@ -23,7 +23,7 @@ interface Compiler { command: string; flags: string[]; label: string; asmImmedia
 
 /** The compiler and flags used for each data model. `asmImmediate` prints an asm "i" operand without punctuation. */
 export const REFERENCE_COMPILERS: Record<Target, Compiler> = {
-  lp64: { command: 'gcc', flags: [], label: 'gcc 12.2 (x86-64)', asmImmediate: '%P' },
+  lp64: { command: process.arch === 'x64' ? 'gcc' : 'x86_64-linux-gnu-gcc', flags: [], label: 'gcc 12.2 (x86-64)', asmImmediate: '%P' },
   ilp32: { command: 'arm-none-eabi-gcc', flags: ['-mcpu=cortex-m4', '-mthumb'], label: 'arm-none-eabi-gcc 12.2 -mcpu=cortex-m4', asmImmediate: '%c' },
   ip16: { command: 'avr-gcc', flags: ['-mmcu=avr5'], label: 'avr-gcc 5.4 -mmcu=avr5', asmImmediate: '%' },
 };

@@ -1,8 +1,8 @@
 // Reference check for undefined behaviour: the compiler decides which operations are undefined, and the evaluator
 // must report exactly those (Code.cUndefined, or cDivZero for a zero divisor) and compute the others to the
 // compiler's value.
-// - lp64: gcc's UndefinedBehaviorSanitizer (Debian gcc 12.2, libubsan) on x86-64, the one target whose programs
-//   run on this host. Each operation runs on volatile operands, so gcc cannot fold it away;
+// - lp64: gcc's UndefinedBehaviorSanitizer (Debian gcc 12.2, libubsan) on the 64-bit host (x86-64, or any LP64
+//   Linux host: none of these cases depends on what else differs), the one target whose programs run here. Each operation runs on volatile operands, so gcc cannot fold it away;
 //   `-fno-sanitize-recover=all` stops the program at the first report.
 // - ilp32 and ip16: compile only, with arm-none-eabi-gcc 12.2 and avr-gcc 5.4 (gcc-print.ts). In a constant
 //   expression gcc -pedantic reports an overflow, a division by zero or a shift out of range; nothing is run.
@@ -121,7 +121,7 @@ function compiledVerdicts(model: Model): Verdict[] {
 
 for (const model of ['lp64', 'ilp32', 'ip16'] as Model[]) {
   const compiler = REFERENCE_COMPILERS[model];
-  const how = model === 'lp64' ? `gcc's UBSan (Debian gcc 12.2, x86-64, run)` : `${compiler.label}, compile only`;
+  const how = model === 'lp64' ? `gcc's UBSan (Debian gcc 12.2, ${process.arch}, run)` : `${compiler.label}, compile only`;
   describe(`Undefined behaviour against ${how} as reference, ${model}`, function () {
     let verdicts: Verdict[] | undefined;
     before(function () {
