@@ -120,6 +120,8 @@ export interface BlockReference {
   line: number;
   /** The nominal value it supplied, SI base units. */
   value: number;
+  /** The referenced block's circuit, for formatting the value. */
+  circuit: string;
   /** The reference as written in this block (its `@name` and `.result`), for the editor. */
   span: Span;
   /** The key whose value holds the reference. */

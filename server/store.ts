@@ -8,10 +8,11 @@
 import * as path from 'node:path';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import type { Diagnostic } from 'vscode-languageserver';
-import { Analyzer, analyzeDocument, tooLargeAnalysis, type AnalyzeOptions, type CacheStats } from '../core/analyze';
+import { WorkspaceAnalyzer, tooLargeAnalysis, type AnalyzeOptions, type CacheStats } from '../core/analyze';
+import { collectFiles, languageOf } from '../core/cli/files';
 import { Code } from '../core/codes';
 import type { BlockAnalysis, DocumentAnalysis } from '../core/types';
-import { corePathOf, FileReader, folderOf, realpathOrUndefined, type OpenDocuments } from './files';
+import { corePathOf, FileReader, folderOf, isUriString, realpathOrUndefined, type OpenDocuments } from './files';
 import { placedFindings, toDiagnostic, type DiagnosticPlace, type PlacedFinding } from './findings';
 import type { ServerSettings } from './settings';
 
@@ -36,7 +37,6 @@ export interface StoreHost {
 }
 
 interface State {
-  analyzer: Analyzer;
   last?: Analysed;
   /** Dropped by a change elsewhere (a header, the settings): re-analyse even at the same version. */
   stale: boolean;
@@ -46,6 +46,13 @@ export const timingLanguages: readonly string[] = ['markdown', 'c', 'cpp'];
 
 export class AnalysisStore {
   private readonly states = new Map<string, State>();
+  /**
+   * Every timing document the analysis sees: open buffers and the workspace folders' notes and sources, so a
+   * `@name` resolves across files and an edit upstream re-analyses its dependants in every open file.
+   */
+  private readonly workspace = new WorkspaceAnalyzer();
+  /** Timing files in the workspace folders, found once and again when files come and go. */
+  private files: string[] | undefined;
   private readonly dirty = new Map<string, number | undefined>();
   private timer: NodeJS.Immediate | undefined;
 
@@ -58,7 +65,7 @@ export class AnalysisStore {
 
   opened(doc: TextDocument): void {
     if (!this.isTiming(doc)) return;
-    if (!this.states.has(doc.uri)) this.states.set(doc.uri, { analyzer: new Analyzer(), stale: false });
+    if (!this.states.has(doc.uri)) this.states.set(doc.uri, { stale: false });
     this.schedule(doc.uri);
   }
 
@@ -70,6 +77,8 @@ export class AnalysisStore {
   closed(uri: string): void {
     this.states.delete(uri);
     this.dirty.delete(uri);
+    // The file on disk counts again, if it is in the workspace.
+    this.workspace.delete(corePathOf(uri));
   }
 
   /** Documents whose last analysis read `corePath` (a header, a note another block refers to). */
@@ -81,11 +90,27 @@ export class AnalysisStore {
 
   /** A file changed (open buffer, on disk, or a watched file): re-analyse what read it. */
   refreshDependants(corePath: string): void {
+    this.workspace.fileChanged(corePath);
+    if (this.files && !this.files.includes(corePath)) this.files = undefined;
     for (const uri of this.dependantsOf(corePath)) this.invalidate(uri);
+    // Blocks elsewhere may read this file's blocks (`@name`). An open document's own analysis runs the workspace
+    // pass, which refreshes every open dependant; for a file changed on disk, one document that references
+    // blocks runs that pass.
+    if (this.host.reader.openDocument(corePath)) return;
+    for (const [uri, state] of this.states) {
+      if (state.last?.analysis.blocks.some((b) => b.references?.length || b.findings.some((f) => f.code.startsWith('reference-')))) {
+        this.invalidate(uri);
+        return;
+      }
+    }
   }
 
   /** Re-analyse documents (all when none named), e.g. after the settings changed. */
   invalidate(uri?: string): void {
+    if (uri === undefined) {
+      this.workspace.reset();
+      this.files = undefined;
+    }
     const uris = uri === undefined ? [...this.states.keys()] : [uri];
     for (const u of uris) {
       const state = this.states.get(u);
@@ -100,7 +125,12 @@ export class AnalysisStore {
   }
 
   cacheStats(uri: string): CacheStats | undefined {
-    return this.states.get(uri)?.analyzer.stats;
+    return this.states.has(uri) ? this.workspace.stats(corePathOf(uri)) : undefined;
+  }
+
+  /** The last analyses of every document the workspace pass saw (open or not), for references across files. */
+  workspaceAnalyses(): DocumentAnalysis[] {
+    return this.workspace.all();
   }
 
   /** The analysis of the document's current version, computed now if the scheduler has not got to it. */
@@ -139,7 +169,44 @@ export class AnalysisStore {
   /** A file that is not open (the workspace check): analysed once, not kept. */
   analyseText(corePath: string, text: string, languageId: string): DocumentAnalysis {
     const options = this.optionsFor(corePath);
-    return this.guarded(corePath, () => (tooLarge(corePath, text, options) ?? analyzeDocument({ uri: corePath, text, languageId }, options)));
+    return this.guarded(corePath, () => tooLarge(corePath, text, options) ?? this.analyseWorkspace({ uri: corePath, text, languageId }).analyses.get(corePath)!);
+  }
+
+  /**
+   * One workspace pass with `doc` at its given text: open buffers first, then the workspace's timing files from
+   * disk. Blocks whose text and inputs did not change are reused from their document's cache.
+   */
+  private analyseWorkspace(doc: { uri: string; text: string; languageId: string }): { analyses: Map<string, DocumentAnalysis>; changed: string[] } {
+    const seen = new Set<string>([doc.uri]);
+    this.workspace.set(doc);
+    for (const open of this.host.documents.all()) {
+      const file = corePathOf(open.uri);
+      if (seen.has(file) || !this.isTiming(open)) continue;
+      seen.add(file);
+      this.workspace.set({ uri: file, text: open.getText(), languageId: open.languageId });
+    }
+    const maxBytes = this.host.settings().maxSizeKB * 1024;
+    for (const file of this.workspaceFiles()) {
+      if (seen.has(file)) continue;
+      const text = this.host.reader.read(file, maxBytes);
+      // Files without a timing block cannot be referenced: they stay out of the pass.
+      if (text === undefined || !text.includes('timing')) {
+        this.workspace.delete(file);
+        continue;
+      }
+      seen.add(file);
+      this.workspace.set({ uri: file, text, languageId: languageOf(file) });
+    }
+    for (const known of this.workspace.uris()) if (!seen.has(known)) this.workspace.delete(known);
+    return this.workspace.analyze((file) => this.optionsFor(file));
+  }
+
+  private workspaceFiles(): string[] {
+    if (!this.files) {
+      const roots = this.host.roots().filter((root) => !isUriString(root));
+      this.files = roots.length ? collectFiles(roots, roots[0]).files : [];
+    }
+    return this.files;
   }
 
   /** Diagnostics of an analysis, each carrying its version and index for the quick fixes. */
@@ -185,12 +252,33 @@ export class AnalysisStore {
     const corePath = corePathOf(doc.uri);
     const options = this.optionsFor(corePath);
     const text = doc.getText();
-    const analysis = this.guarded(corePath, () => tooLarge(corePath, text, options) ?? state.analyzer.analyze({ uri: corePath, text, languageId: doc.languageId }, options));
+    let others: Array<[TextDocument, DocumentAnalysis]> = [];
+    const analysis = this.guarded(corePath, () => {
+      const own = tooLarge(corePath, text, options);
+      if (own) return own;
+      const pass = this.analyseWorkspace({ uri: corePath, text, languageId: doc.languageId });
+      // Dependants in other open documents whose numbers moved get their new analysis now, not on their next edit.
+      const changed = new Set(pass.changed);
+      others = this.host.documents.all().flatMap((other): Array<[TextDocument, DocumentAnalysis]> => {
+        const file = corePathOf(other.uri);
+        const state = this.states.get(other.uri);
+        const found = pass.analyses.get(file);
+        if (other.uri === doc.uri || !state || !found || (!changed.has(file) && state.last?.version === other.version && !state.stale)) return [];
+        return [[other, found]];
+      });
+      return pass.analyses.get(corePath)!;
+    });
+    const entry = this.record(doc, state, analysis);
+    for (const [other, found] of others) this.record(other, this.states.get(other.uri)!, found);
+    return entry;
+  }
+
+  private record(doc: TextDocument, state: State, analysis: DocumentAnalysis): Analysed {
     const entry: Analysed = { uri: doc.uri, version: doc.version, doc, analysis, placed: placedFindings(analysis) };
     state.last = entry;
     state.stale = false;
     this.dirty.delete(doc.uri);
-    this.host.publish(doc.uri, doc.version, this.diagnosticsOf(doc, corePath, entry.placed, doc.version));
+    this.host.publish(doc.uri, doc.version, this.diagnosticsOf(doc, corePathOf(doc.uri), entry.placed, doc.version));
     this.host.analysed?.(entry);
     return entry;
   }

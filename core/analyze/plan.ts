@@ -204,7 +204,7 @@ function compileSlot(
       upstreamDims.set(ident.name, found.dim);
       if (!upstream.some(([name]) => name === ident.name)) upstream.push([ident.name, found.output, found.result]);
       const { output } = found;
-      plan.references.push({ name: output.name, result: found.result, uri: output.uri, line: output.line, value: output.values[found.result], span: ident.span, key: spec.key });
+      plan.references.push({ name: output.name, result: found.result, uri: output.uri, line: output.line, value: output.values[found.result], circuit: output.circuit, span: ident.span, key: spec.key });
       for (const input of output.inputs) if (!plan.upstreamInputs.some((i) => i.id === input.id)) plan.upstreamInputs.push(input);
       continue;
     }

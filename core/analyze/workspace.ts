@@ -7,7 +7,7 @@ import { circuitById } from '../circuits/registry';
 import { isTooLarge } from '../size';
 import { analyzeBlock, type BlockContext } from './block';
 import type { AnalyzeOptions } from './context';
-import { AnalysisCache } from './cache';
+import { AnalysisCache, type CacheStats } from './cache';
 import { prepareDocument, tooLargeAnalysis, type PreparedDocument } from './document';
 import { buildGraph, type GraphBlock } from './graph';
 import { lookupResult, type BlockOutput, type ReferenceSource } from './references';
@@ -16,14 +16,23 @@ import { nested, ownTolerancedKeys, upstreamEpoch, type Offsets } from './evalua
 import type { Plan } from './plan';
 
 /** Analyses documents together; `cacheFor` gives a document's cache (the editor keeps one per open document). */
-export function analyzeWorkspace(docs: readonly TextDocumentLike[], options: AnalyzeOptions, cacheFor?: (uri: string) => AnalysisCache | undefined): DocumentAnalysis[] {
-  const prepared: Array<PreparedDocument | DocumentAnalysis> = docs.map((doc) => (isTooLarge(doc.text, options.maxFileBytes) ? tooLargeAnalysis(doc.uri, options) : prepareDocument(doc, options)));
+export function analyzeWorkspace(
+  docs: readonly TextDocumentLike[],
+  options: AnalyzeOptions | ((uri: string) => AnalyzeOptions),
+  cacheFor?: (uri: string) => AnalysisCache | undefined,
+  prepare: (doc: TextDocumentLike, options: AnalyzeOptions) => PreparedDocument = prepareDocument,
+): DocumentAnalysis[] {
+  const optionsFor = typeof options === 'function' ? options : () => options;
+  const prepared: Array<PreparedDocument | DocumentAnalysis> = docs.map((doc) => {
+    const own = optionsFor(doc.uri);
+    return isTooLarge(doc.text, own.maxFileBytes) ? tooLargeAnalysis(doc.uri, own) : prepare(doc, own);
+  });
   const graphBlocks: GraphBlock[] = [];
   const slots: Array<{ doc: number; block: number }> = [];
   prepared.forEach((p, d) => {
     if (!('finish' in p)) return;
     p.blocks.forEach((b, i) => {
-      graphBlocks.push({ uri: p.uri, path: shownPath(p.uri, options), raw: b.raw, line: b.context.line });
+      graphBlocks.push({ uri: p.uri, path: shownPath(p.uri, b.context.options), raw: b.raw, line: b.context.line });
       slots.push({ doc: d, block: i });
     });
   });
@@ -35,7 +44,7 @@ export function analyzeWorkspace(docs: readonly TextDocumentLike[], options: Ana
   prepared.forEach((p, d) => {
     const cache = 'finish' in p ? cacheFor?.(p.uri) : undefined;
     caches.set(d, cache);
-    cache?.begin(options);
+    cache?.begin(optionsFor(p.uri));
   });
 
   try {
@@ -120,14 +129,16 @@ function fingerprintOf(analysis: BlockAnalysis, output: BlockOutput): string {
 
 /**
  * The editor's side of the workspace pass: the documents it knows (open buffers and workspace files), each with
- * its cache, so an edit re-analyses the blocks it touched and their dependants in every file, and nothing else.
+ * its cache and its prepared blocks (firmware tables built once per text), so an edit re-analyses the blocks it
+ * touched and their dependants in every file, and nothing else.
  */
 export class WorkspaceAnalyzer {
   private readonly docs = new Map<string, TextDocumentLike>();
   private readonly caches = new Map<string, AnalysisCache>();
+  private readonly prepared = new Map<string, { text: string; optionsKey: string; prepared: PreparedDocument; dependencies: string[] }>();
   private last = new Map<string, DocumentAnalysis>();
 
-  /** Adds or replaces a document (an open buffer wins over the file on disk: the caller decides). */
+  /** Adds or replaces a document (the caller decides whether the open buffer or the file on disk counts). */
   set(doc: TextDocumentLike): void {
     this.docs.set(doc.uri, doc);
   }
@@ -135,25 +146,58 @@ export class WorkspaceAnalyzer {
   delete(uri: string): void {
     this.docs.delete(uri);
     this.caches.delete(uri);
+    this.prepared.delete(uri);
     this.last.delete(uri);
   }
 
-  has(uri: string): boolean {
-    return this.docs.has(uri);
+  uris(): string[] {
+    return [...this.docs.keys()];
+  }
+
+  /** A file changed (a header, a firmware file a note names): documents that read it are prepared afresh. */
+  fileChanged(file: string): void {
+    for (const [uri, entry] of this.prepared) if (uri === file || entry.dependencies.includes(file)) this.prepared.delete(uri);
+  }
+
+  /** Forgets every prepared document (settings or folders changed). */
+  reset(): void {
+    this.prepared.clear();
   }
 
   /** Analyses every document; returns the analyses by uri and the uris whose analysis differs from the last pass. */
-  analyze(options: AnalyzeOptions): { analyses: Map<string, DocumentAnalysis>; changed: string[] } {
+  analyze(optionsFor: (uri: string) => AnalyzeOptions): { analyses: Map<string, DocumentAnalysis>; changed: string[] } {
     const docs = [...this.docs.values()];
-    const results = analyzeWorkspace(docs, options, (uri) => {
-      let cache = this.caches.get(uri);
-      if (!cache) this.caches.set(uri, (cache = new AnalysisCache()));
-      return cache;
-    });
+    const results = analyzeWorkspace(
+      docs,
+      optionsFor,
+      (uri) => {
+        let cache = this.caches.get(uri);
+        if (!cache) this.caches.set(uri, (cache = new AnalysisCache()));
+        return cache;
+      },
+      (doc, options) => {
+        const optionsKey = JSON.stringify([options.defaultTolerance, options.defaultSeries, options.dataModel, options.includeDirs, options.workspaceRoots, options.maxFileBytes]);
+        const known = this.prepared.get(doc.uri);
+        if (known && known.text === doc.text && known.optionsKey === optionsKey) return known.prepared;
+        const prepared = prepareDocument(doc, options);
+        this.prepared.set(doc.uri, { text: doc.text, optionsKey, prepared, dependencies: [] });
+        return prepared;
+      },
+    );
     const analyses = new Map(results.map((a) => [a.uri, a]));
+    for (const analysis of results) {
+      const entry = this.prepared.get(analysis.uri);
+      if (entry) entry.dependencies = analysis.dependencies;
+    }
     const changed = results.filter((a) => summary(this.last.get(a.uri)) !== summary(a)).map((a) => a.uri);
     this.last = analyses;
     return { analyses, changed };
+  }
+
+  /** Blocks of the document in the last pass, and how many were analysed afresh. */
+  stats(uri: string): CacheStats | undefined {
+    const cache = this.caches.get(uri);
+    return cache ? { ...cache.stats } : undefined;
   }
 
   /** The last pass's analysis of a document. */
@@ -169,5 +213,5 @@ export class WorkspaceAnalyzer {
 
 function summary(analysis: DocumentAnalysis | undefined): string {
   if (!analysis) return '';
-  return JSON.stringify([analysis.findings, analysis.blocks.map((b) => [b.name, b.line, b.values, b.spread ?? null, b.findings, b.references ?? null])]);
+  return JSON.stringify([analysis.findings, analysis.blocks.map((b) => [b.name, b.line, b.params, b.values, b.spread ?? null, b.findings, b.references ?? null])]);
 }

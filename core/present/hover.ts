@@ -27,6 +27,8 @@ export function messageMarkdown(message: string): string {
 export interface HoverOptions {
   /** Folder that identifier locations are shown relative to. */
   relativeTo?: string;
+  /** A link target for a line of a file (the editor's file URI with its line), for references to other blocks. */
+  linkTo?: (uri: string, line: number) => string | undefined;
 }
 
 export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {}): string {
@@ -68,6 +70,16 @@ export function viewMarkdown(view: BlockView, options: HoverOptions = {}): strin
       return `- ${code(id.name)} = ${id.value} — ${escapeMarkdown(where)}:${id.line}`;
     });
     out.push('**firmware constants**\n' + lines.join('\n'));
+  }
+  if (view.references.length) {
+    const lines = view.references.map((ref) => {
+      const where = `${escapeMarkdown(options.relativeTo ? relative(options.relativeTo, ref.uri) : basename(ref.uri))}:${ref.line}`;
+      const target = options.linkTo?.(ref.uri, ref.line);
+      // The link text is escaped; the target is the editor's own file URI, parentheses and spaces encoded.
+      const link = target ? `[${where}](${target.replace(/[()\s]/g, (c) => encodeURIComponent(c))})` : where;
+      return `- ${code(ref.label)} = ${ref.value} — ${link}`;
+    });
+    out.push('**from other blocks**\n' + lines.join('\n'));
   }
   if (view.working.length) {
     out.push('**working**\n' + view.working.map((w) => `- ${code(w.formula)}  \n  ${code(w.substituted)}  \n  *${escapeMarkdown(w.source)}*`).join('\n'));

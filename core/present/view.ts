@@ -36,6 +36,19 @@ export interface IdentifierRow {
   line: number;
 }
 
+/** Another block's result the block read: shown as a value, with where that block stands. */
+export interface ReferenceRow {
+  /** `@name.result`. */
+  label: string;
+  value: string;
+  uri: string;
+  line: number;
+}
+
+/** How tolerance travels through references: said wherever a block reads another block's result. */
+export const referenceAssumption =
+  'Referenced results bring their toleranced inputs with them: a source that two references share (one crystal behind two bus clocks) moves as one input, in the worst case and in Monte Carlo alike; different sources vary independently.';
+
 export interface BlockView {
   name: string;
   circuit?: string;
@@ -59,6 +72,8 @@ export interface BlockView {
   shares?: { result: string; parts: Array<{ key: string; percent: number }> };
   solved: SolvedRow[];
   identifiers: IdentifierRow[];
+  /** Other blocks' results used, each once. */
+  references: ReferenceRow[];
   working: WorkingLine[];
   assumptions: string[];
 }
@@ -82,9 +97,21 @@ export function blockView(analysis: BlockAnalysis): BlockView {
     shares: model ? sharesOf(model, analysis) : undefined,
     solved: model ? solvedRows(model, analysis) : [],
     identifiers: analysis.identifiers.map((id) => ({ name: id.name, value: formatConstant(id.value), uri: id.uri, line: id.line })),
+    references: referenceRows(analysis),
     working: model ? workingOf(model, analysis) : [],
-    assumptions: model ? model.assumptions.filter((a) => assumptionApplies(model, analysis.choices, a)) : [],
+    assumptions: model ? [...model.assumptions.filter((a) => assumptionApplies(model, analysis.choices, a)), ...(analysis.references?.length ? [referenceAssumption] : [])] : [],
   };
+}
+
+function referenceRows(analysis: BlockAnalysis): ReferenceRow[] {
+  const rows: ReferenceRow[] = [];
+  for (const ref of analysis.references ?? []) {
+    const label = `@${ref.name}.${ref.result}`;
+    if (rows.some((r) => r.label === label && r.uri === ref.uri)) continue;
+    const model = circuitById(ref.circuit);
+    rows.push({ label, value: model ? formatResult(model, ref.result, ref.value) : formatConstant(ref.value), uri: ref.uri, line: ref.line });
+  }
+  return rows;
 }
 
 function resultRows(model: CircuitModel, analysis: BlockAnalysis): ResultRow[] {

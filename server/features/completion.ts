@@ -34,7 +34,7 @@ function coreEntries(ctx: ServerContext, at: At): CompletionItem[] {
 
 export const completion: Feature = {
   name: 'completion',
-  capabilities: { completionProvider: { triggerCharacters: [':'] } },
+  capabilities: { completionProvider: { triggerCharacters: [':', '@', '.'] } },
   contribute(into) {
     into.completion.push(coreEntries);
   },

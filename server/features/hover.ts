@@ -18,7 +18,7 @@ export const hover: Feature = {
       const folder = folderOf(corePathOf(doc.uri), ctx.roots());
       // The core escapes all document text; the Markdown holds no HTML and no command links.
       return {
-        contents: { kind: 'markdown', value: hoverMarkdown(found.block, { relativeTo: folder }) },
+        contents: { kind: 'markdown', value: hoverMarkdown(found.block, { relativeTo: folder, linkTo: (file, line) => `${ctx.reader.uriOf(file)}#L${line}` }) },
         range: spanToRange(found.entry.doc, found.block.block.span),
       };
     });
