@@ -2,9 +2,9 @@
 // derived in C's integer arithmetic (PWM_CMP truncates 67.2 to 67), so a real-valued reading would differ.
 export const boardHeader = `#ifndef BOARD_H
 #define BOARD_H
-#define HSE_HZ 12000000UL
+#define XTAL_HZ 12000000UL
 #define PLL_MUL 6u
-#define SYS_HZ (HSE_HZ * PLL_MUL / 2u)
+#define SYS_HZ (XTAL_HZ * PLL_MUL / 2u)
 enum div_log2 { DIV_1_LOG2, DIV_2_LOG2, DIV_4_LOG2, DIV_8_LOG2 };
 #define PWM_PRESCALE (1u << DIV_8_LOG2)
 enum pwm_regs { PWM_HZ = 20000, PWM_TOP = SYS_HZ / PWM_PRESCALE / PWM_HZ - 1, PWM_CMP = PWM_TOP * 3 / 10 };
