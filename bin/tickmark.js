@@ -1,12 +1,11 @@
 #!/usr/bin/env node
-// Runs the bundle out/cli.js (`npm run build`) when it is at least as new as every core source; otherwise, in a
-// checkout with edited sources, the TypeScript through tsx. Compiling the core with tsx at each start costs
-// about a second, so the bundle is what CI and the packaged copy run.
+// The `tickmark` command. An installed package (npm install -g, npx) holds only the bundles out/cli.js and
+// out/server.js and runs them with no dependency at all. In a source checkout the bundle runs when it is at
+// least as new as every source; with edited sources the TypeScript runs through tsx (a dev dependency), since
+// compiling the core at each start costs about a second.
 const fs = require('node:fs');
 const path = require('node:path');
 const root = path.join(__dirname, '..');
-const source = path.join(root, 'core', 'cli', 'main.ts');
-const bundle = path.join(root, 'out', 'cli.js');
 
 function newestSource(folder) {
   let newest = 0;
@@ -18,37 +17,44 @@ function newestSource(folder) {
   return newest;
 }
 
-function bundleIsCurrent() {
-  if (!fs.existsSync(bundle)) return false;
-  if (!fs.existsSync(source)) return true;
-  try {
-    return fs.statSync(bundle).mtimeMs >= newestSource(path.join(root, 'core'));
-  } catch {
-    return false;
+/** The bundle, or in a checkout whose sources are newer, the TypeScript entry point loaded through tsx. */
+function load(bundleName, sourceName, sourceFolders) {
+  const bundle = path.join(root, 'out', bundleName);
+  const source = path.join(root, sourceName);
+  const checkout = fs.existsSync(source);
+  if (fs.existsSync(bundle)) {
+    if (!checkout) return require(bundle);
+    try {
+      const newest = Math.max(...sourceFolders.map((f) => newestSource(path.join(root, f))));
+      if (fs.statSync(bundle).mtimeMs >= newest) return require(bundle);
+    } catch {
+      // A folder that cannot be read: fall through to the sources.
+    }
   }
+  if (!checkout) {
+    process.stderr.write(`tickmark: ${path.join('out', bundleName)} is missing from this installation; reinstall the package\n`);
+    process.exit(2);
+  }
+  require('tsx/cjs');
+  return require(source);
 }
 
+const [command, ...rest] = process.argv.slice(2);
+
 // `tickmark lsp --stdio`: the language server, from its own bundle (out/server.js) or its sources.
-if (process.argv[2] === 'lsp') {
-  const transports = ['--stdio', '--node-ipc', '--socket', '--pipe'];
-  if (!process.argv.slice(3).some((a) => transports.some((t) => a === t || a.startsWith(t + '=')))) {
-    process.stderr.write('usage: tickmark lsp --stdio\n\nServes the analysis over the Language Server Protocol on standard input and output.\n');
-    process.exit(process.argv.includes('--help') || process.argv.includes('-h') ? 0 : 2);
+if (command === 'lsp') {
+  if (rest.includes('--version') || rest.includes('-V')) {
+    process.stdout.write(`${require('../package.json').version}\n`);
+    return;
   }
-  const serverBundle = path.join(root, 'out', 'server.js');
-  const serverSource = path.join(root, 'server', 'main.ts');
-  const current = fs.existsSync(serverBundle) && (!fs.existsSync(serverSource) ||
-    fs.statSync(serverBundle).mtimeMs >= Math.max(newestSource(path.join(root, 'core')), newestSource(path.join(root, 'server'))));
-  if (!current) require('tsx/cjs');
-  require(current ? serverBundle : serverSource).startServer();
+  const transports = ['--stdio', '--node-ipc', '--socket', '--pipe'];
+  if (!rest.some((a) => transports.some((t) => a === t || a.startsWith(t + '=')))) {
+    process.stderr.write('usage: tickmark lsp --stdio\n\nServes the analysis over the Language Server Protocol on standard input and output.\n');
+    process.exit(rest.includes('--help') || rest.includes('-h') ? 0 : 2);
+  }
+  load('server.js', path.join('server', 'main.ts'), ['core', 'server']).startServer();
   return;
 }
 
-let cli;
-if (bundleIsCurrent()) {
-  cli = require(bundle);
-} else {
-  require('tsx/cjs');
-  cli = require(source);
-}
+const cli = load('cli.js', path.join('core', 'cli', 'main.ts'), ['core']);
 process.exitCode = cli.main(process.argv.slice(2), cli.processIo());

@@ -104,12 +104,16 @@ if (!release && existsSync(at('test/editor/suite/index.ts'))) {
 
 if (release) for (const dir of ['out', 'media/dist']) rmSync(at(dir), { recursive: true, force: true });
 
+// `--cli`: only the command line and the language server, the bundles the npm package runs (the packaging
+// test builds these without touching the rest of out/).
+const only = process.argv.includes('--cli') ? targets.filter((t) => /out\/(cli|server)\.js$/.test(t.outfile.split(path.sep).join('/'))) : targets;
+
 try {
   if (watch) {
-    const contexts = await Promise.all(targets.map((t) => esbuild.context(t)));
+    const contexts = await Promise.all(only.map((t) => esbuild.context(t)));
     await Promise.all(contexts.map((c) => c.watch()));
   } else {
-    await Promise.all(targets.map((t) => esbuild.build(t)));
+    await Promise.all(only.map((t) => esbuild.build(t)));
   }
 } catch {
   // esbuild has already printed the positioned errors.

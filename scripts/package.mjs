@@ -12,11 +12,12 @@ const vsix = path.join(projectRoot, `${pkg.name}-${pkg.version}.vsix`);
 const run = (command, args, options = {}) => execFileSync(command, args, { cwd: projectRoot, stdio: 'inherit', ...options });
 
 run(process.execPath, ['scripts/build.mjs', '--release']);
-// No repository or licence file yet: vsce would stop to ask about both, and could not turn the README's
-// links to DEVELOPERS.md into web links; they stay relative (they resolve in the source tree).
+// What ships is package.json `files` (the npm tarball and the .vsix alike; vsce takes no .vscodeignore beside
+// it). The Marketplace and Open VSX page is MARKETPLACE.md, a user-facing README; vsce turns its relative
+// image paths into links under the `repository` URL, where docs/screenshots/ is published.
 try {
   run(process.execPath, [path.join(projectRoot, 'node_modules', '@vscode', 'vsce', 'vsce'), 'package', '--no-dependencies',
-    '--allow-missing-repository', '--no-rewrite-relative-links', '--out', vsix]);
+    '--readme-path', 'MARKETPLACE.md', '--out', vsix]);
 } catch {
   process.exit(1);
 }
