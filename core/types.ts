@@ -40,7 +40,7 @@ export interface Finding {
 }
 
 /** The physical dimension of a value, named by its SI unit. '' is a plain number. */
-export type Dim = 'Ω' | 'F' | 'V' | 'Hz' | 's' | 'A' | '' | '%' | 'baud' | 'other';
+export type Dim = 'Ω' | 'F' | 'V' | 'Hz' | 's' | 'A' | '' | '%' | 'baud' | 'bit/s' | 'other';
 
 /** A resolved value in SI base units. */
 export interface Quantity {

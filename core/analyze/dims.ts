@@ -17,6 +17,7 @@ const dimWords: Record<string, string> = {
   '': 'a plain number',
   '%': 'a percentage',
   baud: 'a baud rate',
+  'bit/s': 'a bitrate (bit/s)',
   other: 'a compound unit',
 };
 

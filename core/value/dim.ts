@@ -39,6 +39,7 @@ type State =
   | { kind: 'plain' }
   | { kind: 'percent' }
   | { kind: 'baud' }
+  | { kind: 'bitrate' }
   | { kind: 'other' }
   | UnitState;
 
@@ -49,6 +50,7 @@ function stateOf(dim: Dim): State {
     case '': return plain;
     case '%': return { kind: 'percent' };
     case 'baud': return { kind: 'baud' };
+    case 'bit/s': return { kind: 'bitrate' };
     case 'other': return { kind: 'other' };
     default: return { kind: 'unit', dim };
   }
@@ -66,6 +68,7 @@ function dimOfState(s: State): Dim {
     case 'plain': return '';
     case 'percent': return '%';
     case 'baud': return 'baud';
+    case 'bitrate': return 'bit/s';
     case 'other': return 'other';
     case 'unit': return s.dim ?? base().find(([, u]) => s.unit!.equalBase(u))?.[0] ?? 'other';
   }
@@ -75,6 +78,7 @@ function words(s: State): string {
   if (s.kind === 'plain') return 'a plain number';
   if (s.kind === 'percent') return 'a percentage';
   if (s.kind === 'baud') return 'a baud rate';
+  if (s.kind === 'bitrate') return 'a bitrate';
   const d = dimOfState(s);
   return d === 'other' ? 'a compound unit' : d;
 }
@@ -93,7 +97,7 @@ function add(op: '+' | '-', a: State, b: State, span: Span): State {
   if (a.kind === 'other' || b.kind === 'other') return { kind: 'other' };
   if (a.kind === 'percent' && b.kind === 'percent') return a;
   if (isDimensionless(a) && isDimensionless(b)) return plain;
-  if (a.kind === 'baud' && b.kind === 'baud') return a;
+  if ((a.kind === 'baud' || a.kind === 'bitrate') && a.kind === b.kind) return a;
   if (a.kind === 'unit' && b.kind === 'unit' && sameBase(a, b)) return a;
   const verb = op === '+' ? `cannot add ${words(b)} to ${words(a)}` : `cannot subtract ${words(b)} from ${words(a)}`;
   const hint = a.kind === 'unit' && b.kind === 'plain' ? ` — give the number a unit (${dimOfState(a)})` : '';
@@ -102,11 +106,13 @@ function add(op: '+' | '-', a: State, b: State, span: Span): State {
 
 function multiply(op: '*' | '/', a: State, b: State, span: Span): State {
   if (a.kind === 'other' || b.kind === 'other') return { kind: 'other' };
-  if (a.kind === 'baud' || b.kind === 'baud') {
-    if (a.kind === 'baud' && b.kind === 'plain') return a;
+  // Baud and bit/s are counts per second of their own kind: scaled by plain numbers, or divided by their own kind.
+  const rate = (s: State) => s.kind === 'baud' || s.kind === 'bitrate';
+  if (rate(a) || rate(b)) {
+    if (rate(a) && b.kind === 'plain') return a;
     if (op === '*' && a.kind === 'plain') return b;
-    if (op === '/' && a.kind === 'baud' && b.kind === 'baud') return plain;
-    return fail(`\`${op}\`: a baud rate may only be scaled by a plain number; use Hz for arithmetic with other units`, span);
+    if (op === '/' && rate(a) && a.kind === b.kind) return plain;
+    return fail(`\`${op}\`: ${words(rate(a) ? a : b)} may only be scaled by a plain number; use Hz for arithmetic with other units`, span);
   }
   if (b.kind === 'plain') return a;
   if (op === '*' && a.kind === 'plain') return b;

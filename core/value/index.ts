@@ -9,3 +9,4 @@ export { MAX_DEPTH } from './parser';
 export { MAX_TOKENS } from './lexer';
 export type { BlockRef } from './ast';
 export { readReference, referencesIn, defaultReferenceResult } from './reference';
+export { parseUnknown, parseRange, type ParsedUnknown, type ParsedRange } from './allowed';

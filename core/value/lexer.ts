@@ -47,6 +47,13 @@ function runEnd(text: string, at: number, pred: (c: string) => boolean): number 
   return at;
 }
 
+/** A unit suffix: a run of unit characters, where `bit` may go on as `bit/s` (the one unit with a slash). */
+function unitEnd(text: string, at: number): number {
+  const end = runEnd(text, at, isUnitChar);
+  if (end - at >= 3 && text.startsWith('bit', end - 3) && text[end] === '/' && text[end + 1] === 's' && (end + 2 >= text.length || !isUnitChar(text[end + 2]))) return end + 2;
+  return end;
+}
+
 /** `4k7`, `2R2`, `3V3`, `4n7`, optionally followed by a unit: the letter is the decimal point. */
 function letterDigitCode(whole: string, suffix: string): { mantissa: string; exponent: number; dim: Dim } | undefined {
   const code = letterCode[suffix[0]];
@@ -72,7 +79,7 @@ export function lex(text: string, offset: number): LexResult {
   /** Reads a unit standing after spaces (`47 kΩ`, `5 %`); returns the new end or `end` unchanged. */
   const spacedUnit = (written: string, end: number): { end: number; dim?: Dim; exponent?: number } => {
     const wordStart = runEnd(text, end, isSpace);
-    const wordEnd = runEnd(text, wordStart, isUnitChar);
+    const wordEnd = unitEnd(text, wordStart);
     if (wordStart === end || wordEnd === wordStart) return { end };
     const word = shown(text.slice(wordStart, wordEnd));
     const numberText = shown(written);
@@ -123,7 +130,7 @@ export function lex(text: string, offset: number): LexResult {
       }
     }
     const mantissa = text.slice(start, mantissaEnd);
-    const suffixEnd = runEnd(text, end, isUnitChar);
+    const suffixEnd = unitEnd(text, end);
     const suffix = text.slice(end, suffixEnd);
     if (suffix === '') return pushNumber(start, mantissa, power, '', end, true);
     const code = end === wholeEnd ? letterDigitCode(text.slice(start, wholeEnd), suffix) : undefined;

@@ -35,6 +35,8 @@ export const units: Readonly<Record<string, UnitInfo>> = {
   s: { dim: 's', exponent: 0, prefixable: true },
   baud: { dim: 'baud', exponent: 0, prefixable: true },
   Bd: { dim: 'baud', exponent: 0, prefixable: true },
+  // A bus bitrate (CAN): its own measure, as baud is, so a bitrate claim cannot be read as a frequency.
+  'bit/s': { dim: 'bit/s', exponent: 0, prefixable: true },
   '%': { dim: '%', exponent: -2, prefixable: false },
   // Parts per million: the trade's unit for crystal tolerance; a fraction like percent.
   ppm: { dim: '%', exponent: -6, prefixable: false },
@@ -75,7 +77,7 @@ export const letterCode: Readonly<Record<string, { exponent: number; dim: Dim }>
 /** Canonical suffixes offered in "did you mean" hints (no K, no duplicate µ or Ω forms). */
 export const suggestableSuffixes: readonly string[] = (() => {
   const out: string[] = ['k', 'M', 'G', 'T', 'm', 'u', 'µ', 'n', 'p', 'f'];
-  const unitNames = ['Ω', 'ohm', 'F', 'V', 'A', 'Hz', 's', 'baud', 'Bd'];
+  const unitNames = ['Ω', 'ohm', 'F', 'V', 'A', 'Hz', 's', 'baud', 'Bd', 'bit/s'];
   out.push(...unitNames, '%', 'ppm', 'R');
   for (const p of ['f', 'p', 'n', 'u', 'µ', 'm', 'k', 'M', 'G', 'T']) {
     for (const u of unitNames) out.push(p + u);
