@@ -94,7 +94,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   analysis.params = finiteOnly(params);
   if (blocked() || plan.unknowns.some((u) => !(u.key in overrides))) return analysis;
 
-  const input = modelInput(plan, params);
+  const input = modelInput(plan, params, true);
   // The parameter table's limits speak first; the model's own check of the same key would only repeat them.
   const limits = limitIssues(model, params);
   const flagged = new Set(limits.map((i) => i.key));
@@ -179,13 +179,15 @@ function safeCautions(model: CircuitModel, input: ReturnType<typeof modelInput>)
  * on a block named like a guard keeps the caution (a caution one word can remove protects no one).
  */
 function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>, raw: RawBlock, entries: Map<string, BlockEntry>, findings: Finding[]): string[] {
-  const cautions = safeCautions(model, input).filter((c) => c !== safetyCaution);
+  const all = safeCautions(model, input);
+  const cautions = all.filter((c) => c !== safetyCaution);
   const entry = entries.get('safety');
-  let safety = isSafetyName(raw.name);
+  // A model whose timing is always safety-related (watchdog) gives the caution itself, whatever the name.
+  let safety = isSafetyName(raw.name) || all.includes(safetyCaution);
   if (entry) {
     const word = entry.valueText.trim().toLowerCase();
     if (word === 'yes') safety = true;
-    else if (word === 'no' && safety) findings.push({ severity: 'info', code: Code.safetyKept, message: '`safety: no` does not remove the caution from a block named for watchdog, reset or interlock timing', span: entry.valueSpan });
+    else if (word === 'no' && safety) findings.push({ severity: 'info', code: Code.safetyKept, message: '`safety: no` does not remove the caution from a watchdog, or from a block named for watchdog, reset or interlock timing', span: entry.valueSpan });
     else if (word !== 'no') findings.push({ severity: 'error', code: Code.valueOption, message: `\`safety\` takes \`yes\` or \`no\`, not \`${entry.valueText}\``, span: entry.valueSpan });
   }
   return safety ? [safetyCaution, ...cautions] : cautions;

@@ -1,7 +1,7 @@
 // Keys a block may carry besides its circuit's parameters, and the helpers to suggest a near miss.
 
 /** Block keys that steer the analysis rather than describe the circuit. */
-export const metaKeys = ['circuit', 'expect', 'target', 'series', 'samples', 'seed', 'firmware', 'data-model', 'safety'] as const;
+export const metaKeys = ['circuit', 'expect', 'target', 'target2', 'target3', 'series', 'samples', 'seed', 'firmware', 'data-model', 'safety'] as const;
 
 export type MetaKey = (typeof metaKeys)[number];
 

@@ -1,14 +1,31 @@
 // Running a plan through its model, and choosing which result a claimed or targeted unit speaks of.
 import type { Dim } from '../types';
-import type { CircuitModel, ModelInput, ModelIssue, QuantityParam } from '../circuits/model';
+import type { Band, CircuitModel, ModelInput, ModelIssue, QuantityParam } from '../circuits/model';
 import type { Plan } from './plan';
 import { finiteOnly } from '../num';
 import { Code } from '../codes';
 export { finiteOnly };
 import { evaluateParams, type Offsets } from './evaluate';
 
-export function modelInput(plan: Plan, values: Readonly<Record<string, number>>): ModelInput {
-  return { values, choices: plan.choices, lists: plan.lists, name: plan.name };
+/** The model's input; `nominal` adds each toleranced input's relative band (spread corners move the inputs instead). */
+export function modelInput(plan: Plan, values: Readonly<Record<string, number>>, nominal = false): ModelInput {
+  const input: ModelInput = { values, choices: plan.choices, lists: plan.lists, ranges: plan.ranges, name: plan.name };
+  return nominal ? { ...input, tolerances: inputTolerances(plan, values) } : input;
+}
+
+/** Relative bands of the toleranced inputs (an absolute `±0.1 V` over its nominal value). */
+export function inputTolerances(plan: Plan, values: Readonly<Record<string, number>>): Record<string, Band> {
+  const bands: Record<string, Band> = {};
+  for (const slot of plan.slots.values()) {
+    const t = slot.tolerance;
+    if (!t || !(t.plus > 0 || t.minus > 0)) continue;
+    if (t.kind === 'relative') bands[slot.key] = { plus: t.plus, minus: t.minus };
+    else {
+      const value = Math.abs(values[slot.key]);
+      if (value > 0 && Number.isFinite(value)) bands[slot.key] = { plus: t.plus / value, minus: t.minus / value };
+    }
+  }
+  return bands;
 }
 
 /** Limits from the parameter table (positive parts, integer registers), before the model's own physics. */

@@ -1,8 +1,8 @@
 // Turns a scanned block into an evaluation plan: each parameter compiled once, replayed many times
 // (nominal, tolerance corners, Monte Carlo samples, solver steps) without parsing again.
 import type { BlockEntry, BlockReference, Dim, Finding, RawBlock, ResolvedIdentifier, Span, Tolerance } from '../types';
-import type { CircuitModel, IntegerSet, QuantityParam } from '../circuits/model';
-import { compileValue, dimOf, parseIntegerSet, parseValue, type BlockRef, type ValueNode } from '../value';
+import type { CircuitModel, IntegerSet, Interval, QuantityParam } from '../circuits/model';
+import { compileValue, dimOf, parseIntegerSet, parseRange, parseUnknown, parseValue, type BlockRef, type ValueNode } from '../value';
 import { Code } from '../codes';
 import type { DataModelName, IdentifierLookup, IdentifierSource } from './context';
 import { didYouMean, isMetaEntry, metaKeys } from './keys';
@@ -30,6 +30,8 @@ export interface Unknown {
   spec: QuantityParam;
   entry: BlockEntry;
   span: Span;
+  /** Values the `?` may take (`? 1..63`, `? 2, 4, 6, 8`). */
+  allowed?: IntegerSet;
 }
 
 export interface Plan {
@@ -43,6 +45,7 @@ export interface Plan {
   externalLookups: Map<string, IdentifierLookup & { ok: true }>;
   choices: Record<string, string>;
   lists: Record<string, IntegerSet>;
+  ranges: Record<string, Interval>;
   unknowns: Unknown[];
   findings: Finding[];
   identifiers: ResolvedIdentifier[];
@@ -118,6 +121,7 @@ export function buildPlan(
     externalLookups: new Map(),
     choices: {},
     lists: {},
+    ranges: {},
     unknowns: [],
     findings: [],
     identifiers: [],
@@ -152,6 +156,18 @@ export function buildPlan(
       const parsed = parseIntegerSet(entry.valueText, entry.valueSpan.start);
       plan.findings.push(...parsed.findings);
       if (parsed.set) plan.lists[spec.key] = parsed.set;
+      continue;
+    }
+    if (spec.kind === 'range') {
+      const parsed = parseRange(entry.valueText, entry.valueSpan.start, spec.dim, spec.key);
+      plan.findings.push(...parsed.findings);
+      if (parsed.min !== undefined && parsed.max !== undefined) plan.ranges[spec.key] = { min: parsed.min, max: parsed.max };
+      continue;
+    }
+    const unknown = parseUnknown(entry.valueText, entry.valueSpan.start);
+    if (unknown) {
+      plan.findings.push(...unknown.findings);
+      if (!unknown.findings.some((f) => f.severity === 'error')) plan.unknowns.push({ key: spec.key, spec, entry, span: unknown.span, allowed: unknown.allowed });
       continue;
     }
     const parsed = parseValue(entry.valueText, entry.valueSpan.start);

@@ -57,6 +57,17 @@ export function checkPositive(input: ModelInput, keys: readonly string[], issues
   return ok;
 }
 
+/** A register or count: a whole number within [min, max] when present (absent keys are left to the caller). */
+export function checkWhole(input: ModelInput, key: string, min: number, max: number, issues: ModelIssue[]): boolean {
+  const value = input.values[key];
+  if (value === undefined) return true;
+  if (!Number.isInteger(value) || value < min || value > max) {
+    issues.push({ key, message: `\`${key}\` must be a whole number from ${min} to ${max} (got ${eng(value)})` });
+    return false;
+  }
+  return true;
+}
+
 export function hasErrors(issues: readonly ModelIssue[]): boolean {
   return issues.some((issue) => (issue.severity ?? 'error') === 'error');
 }

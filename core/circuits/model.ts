@@ -44,7 +44,28 @@ export interface ListParam {
   description: string;
 }
 
-export type ParamSpec = QuantityParam | ChoiceParam | ListParam;
+/** Limits written as a range with units (`vco-range: 96 MHz .. 344 MHz`); optional, no default. */
+export interface RangeParam {
+  kind: 'range';
+  key: string;
+  label: string;
+  dim: Dim;
+  description: string;
+}
+
+export type ParamSpec = QuantityParam | ChoiceParam | ListParam | RangeParam;
+
+/** An inclusive interval in SI units. */
+export interface Interval {
+  min: number;
+  max: number;
+}
+
+/** A relative tolerance band of an input (fractions: 20 ppm is 2e-5). */
+export interface Band {
+  plus: number;
+  minus: number;
+}
 
 export type { IntegerSet } from '../types';
 import type { IntegerSet } from '../types';
@@ -54,6 +75,15 @@ export interface ModelInput {
   values: Readonly<Record<string, number>>;
   choices: Readonly<Record<string, string>>;
   lists: Readonly<Record<string, IntegerSet>>;
+  /** Range keys that were given (`pfd-range`, `vco-range`). */
+  ranges?: Readonly<Record<string, Interval>>;
+  /**
+   * Relative tolerance of each toleranced input, present (possibly empty) at the block's nominal evaluation only;
+   * absent at spread corners and search trials, which move the inputs themselves. A model checks limits that
+   * concern the whole band (a watchdog's shortest timeout, a PLL's vco range) only when it is present, so a
+   * spread corner is never dropped for leaving a band the nominal check already judged.
+   */
+  tolerances?: Readonly<Record<string, Band>>;
   /** The block's name when it has one: cautions depend on use (a timer named `watchdog`). */
   name?: string;
 }
@@ -64,7 +94,7 @@ export interface ResultSpec {
   dim: Dim;
   /** Fractions shown as percent (duty, error). */
   percent?: boolean;
-  /** Computed only when an optional key is given (a timer's duty needs `compare`); others are always computed. */
+  /** Computed only when an optional key is given (a timer's duty needs `compare`, a PLL's frequency2 `postdiv2`). */
   optional?: boolean;
 }
 
@@ -99,19 +129,30 @@ export interface Waveform {
   duration: number;
 }
 
-/** Timer register search (`prescaler: ?`, `reload: ?`). */
+/** Register search (`prescaler: ?`, `reload: ?`, `mult: ? 8..512`). */
 export interface RegisterSearch {
   /** Keys searched, from the block's `?`s. */
   unknowns: string[];
-  /** The result the target constrains and its value ("frequency", 1000). */
+  /** The result the target constrains and its value ("frequency", 1000); '' and NaN for a search without target. */
   measure: string;
   target: number;
+  /** Every target (`target:`, `target2:`, `target3:`), the first being `measure`/`target` above. */
+  targets?: Array<{ measure: string; target: number }>;
+  /** Values a `?` was given to choose from (`? 1..63`). */
+  allowed?: Readonly<Record<string, IntegerSet>>;
+  /** The block's standard series for parts (`series:` or the setting's default). */
+  series?: string;
 }
 
 export interface RegisterSearchResult {
   values: Record<string, number>;
-  /** Relative error of the achieved measure against the target (0 when exact). */
+  /** Relative error of the achieved measure against the target (0 when exact); the worst one over several targets. */
   error: number;
+  /** Parts snapped onto a series: the exact value before snapping and the series' name. */
+  exact?: Record<string, number>;
+  series?: string;
+  /** One sentence on how the answer was chosen, for a search without target (`largest E24 value in …`). */
+  note?: string;
 }
 
 /** A search that found nothing says why; `error` is then a message, not a relative error. */
@@ -147,4 +188,6 @@ export interface CircuitModel {
   cautions?(input: ModelInput): string[];
   /** For timers: search the `?` registers for a target. */
   search?(input: ModelInput, search: RegisterSearch): RegisterSearchResult | RegisterSearchFailure;
+  /** The search also runs without `target:` (an I²C pull-up chosen within its bounds). */
+  searchWithoutTarget?: boolean;
 }

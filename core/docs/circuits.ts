@@ -5,6 +5,7 @@ import type { ParamSpec } from '../circuits/model';
 function keyText(spec: ParamSpec): string {
   if (spec.kind === 'choice') return `\`${spec.key}\` (${spec.options.join(' / ')}, default ${spec.default})`;
   if (spec.kind === 'list') return `\`${spec.key}\`${spec.defaultText ? ` (default ${spec.defaultText})` : ''}`;
+  if (spec.kind === 'range') return `\`${spec.key}\` [${spec.dim} .. ${spec.dim}] (optional)`;
   const unit = spec.dim && spec.dim !== '%' ? ` ${spec.dim}` : '';
   const dflt = spec.defaultText ?? (typeof spec.default === 'number' ? String(spec.default) : undefined);
   return `\`${spec.key}\`${unit ? ` [${unit.trim()}]` : ''}${dflt !== undefined ? ` (default ${dflt})` : ''}`;

@@ -26,12 +26,16 @@ interface MetaKeyDoc {
   detail: string;
   documentation: string;
   markdownOnly?: boolean;
+  /** Offered only in a block whose circuit gives this result (`target2` for a PLL's `frequency2`). */
+  forResult?: string;
 }
 
 const metaKeyDocs: readonly MetaKeyDoc[] = [
   { key: 'circuit', detail: 'which circuit model', documentation: 'The circuit this block describes; every other key depends on it.' },
   { key: 'expect', detail: 'claimed rate, e.g. 1 kHz ±1%', documentation: 'What the block claims: comma-separated quantities whose unit names the measure (Hz, s, %, baud). A computed value outside the tolerance is a warning.' },
   { key: 'target', detail: 'what a ? value must meet', documentation: 'With one `?` value: the measure to meet (`target: 10 kHz`). R and C are then rounded to the `series:` part.' },
+  { key: 'target2', detail: 'second output\'s target (pll)', documentation: 'A PLL searched with `?`: what its second output (`frequency2`) must meet, together with `target:`.', forResult: 'frequency2' },
+  { key: 'target3', detail: 'third output\'s target (pll)', documentation: 'A PLL searched with `?`: what its third output (`frequency3`) must meet, together with `target:` and `target2:`.', forResult: 'frequency3' },
   { key: 'series', detail: 'E3 … E192 or none (setting default E24)', documentation: 'IEC 60063 series for solved parts; when written, R and C values off the series are flagged with a fix.' },
   { key: 'samples', detail: 'Monte Carlo runs', documentation: 'Number of random draws within the tolerances, for p1/p99 percentiles beside the worst case.' },
   { key: 'seed', detail: 'Monte Carlo seed', documentation: 'Seed of the random draws, so a run repeats exactly.' },
@@ -68,6 +72,7 @@ function keyEntries(place: Extract<CursorPlace, { kind: 'key' }>): CompletionEnt
   }
   for (const meta of metaKeyDocs) {
     if (present.has(meta.key) || (meta.markdownOnly && place.host !== 'markdown')) continue;
+    if (meta.forResult && !model?.results.some((r) => r.key === meta.forResult)) continue;
     if (model?.params.some((p) => p.key === meta.key)) continue;
     entries.push({ ...keyText(meta.key, place.replace), kind: 'meta', detail: meta.detail, documentation: meta.documentation, offersWords: meta.key === 'circuit' || meta.key === 'series' || meta.key === 'data-model' || meta.key === 'safety' });
   }
@@ -78,11 +83,12 @@ function keyText(key: string, replace: Span) {
   return { label: key, insertText: `${key}: `, filterText: key, replace };
 }
 
-const unitOf: Record<string, string> = { 'Ω': 'Ω', F: 'F', V: 'V', Hz: 'Hz', s: 's', A: 'A', '%': '%', baud: 'baud', '': 'number', other: '' };
+const unitOf: Record<string, string> = { 'Ω': 'Ω', F: 'F', V: 'V', Hz: 'Hz', s: 's', A: 'A', '%': '%', baud: 'baud', 'bit/s': 'bit/s', '': 'number', other: '' };
 
 function paramDetail(param: ParamSpec): string {
   if (param.kind === 'choice') return `${param.label}: ${param.options.join(' | ')} (default ${param.default})`;
   if (param.kind === 'list') return `${param.label}: list or a..b${param.defaultText ? ` (default ${param.defaultText})` : ''}`;
+  if (param.kind === 'range') return `${param.label} [${param.dim} .. ${param.dim}] (optional)`;
   const unit = unitOf[param.dim] ?? '';
   const fallback = param.defaultText ?? (typeof param.default === 'number' ? String(param.default) : undefined);
   const need = fallback !== undefined ? `default ${fallback}` : param.optional ? 'optional' : 'required';

@@ -8,7 +8,7 @@ export interface TemplateLine {
   placeholder: string;
 }
 
-const unitHint: Record<string, string> = { 'Ω': 'Ω', F: 'F', V: 'V', Hz: 'Hz', s: 's', A: 'A', '%': '%', baud: 'baud' };
+const unitHint: Record<string, string> = { 'Ω': 'Ω', F: 'F', V: 'V', Hz: 'Hz', s: 's', A: 'A', '%': '%', baud: 'baud', 'bit/s': 'bit/s' };
 
 /** Undefined for an unknown circuit id. */
 export function blockTemplate(circuitId: string): TemplateLine[] | undefined {
