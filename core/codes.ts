@@ -34,6 +34,9 @@ export const Code = {
   rateError: 'rate-error',
   supplyRange: 'supply-range',
   resultOverflow: 'result-overflow',
+  clockRange: 'clock-range',
+  clockTolerance: 'clock-tolerance',
+  refreshTiming: 'refresh-timing',
   // claims and solving
   expectMismatch: 'expect-mismatch',
   expectUnknownMeasure: 'expect-unknown-measure',
@@ -228,6 +231,24 @@ const rows: Record<CodeId, Row> = {
     short: 'A register value is outside what the hardware can hold.',
     full: 'An integer key (prescaler, reload, compare, oversampling, stages, bits …) is not a whole number, is outside the range its register holds, or is not one of the allowed ratios; or a compare value lies beyond the period (a warning: the output stays active).',
     help: 'Pick a value within the range the message states, or change `bits:` / `prescalers:`.',
+  },
+  'clock-range': {
+    severity: 'error',
+    short: 'A PLL\'s comparison or VCO frequency is outside its range.',
+    full: 'pfd = ref / prediv or vco = pfd · mult lies outside `pfd-range` or `vco-range`, so the PLL would not lock (an error); or the reference\'s tolerance carries it beyond the range (a warning).',
+    help: 'Choose prediv or mult that keep the frequency inside the range with margin, or let `?` search them.',
+  },
+  'clock-tolerance': {
+    severity: 'warning',
+    short: 'A clock is less accurate than the bus timing tolerates.',
+    full: 'The tolerance given with a CAN controller\'s clock exceeds the largest oscillator tolerance its bit timing survives by the two conditions of ISO 11898-1; nodes may lose synchronisation.',
+    help: 'Use a more accurate clock (a crystal rather than an RC oscillator), or a larger sjw and phase segments.',
+  },
+  'refresh-timing': {
+    severity: 'error',
+    short: 'A watchdog refresh comes too late or too early.',
+    full: 'The firmware\'s refresh interval reaches the shortest timeout over the clock\'s tolerance, or comes before a window watchdog\'s window opens at its latest; either way the watchdog resets a healthy system.',
+    help: 'Refresh more often, lengthen the timeout (prescaler, reload), or move the window; verify on the hardware.',
   },
   'rate-error': {
     severity: 'warning',

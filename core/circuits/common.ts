@@ -1,5 +1,6 @@
 // Building blocks shared by the circuit model files: parameter specs, checks, number text, cautions.
 import { formatPercent, formatQuantity } from '../format';
+import { Code } from '../codes';
 export { finiteOnly } from '../num';
 import type { ModelInput, ModelIssue, QuantityParam, ResultSpec } from './model';
 
@@ -62,7 +63,7 @@ export function checkWhole(input: ModelInput, key: string, min: number, max: num
   const value = input.values[key];
   if (value === undefined) return true;
   if (!Number.isInteger(value) || value < min || value > max) {
-    issues.push({ key, message: `\`${key}\` must be a whole number from ${min} to ${max} (got ${eng(value)})` });
+    issues.push({ key, code: Code.registerRange, message: `\`${key}\` must be a whole number from ${min} to ${max} (got ${eng(value)})` });
     return false;
   }
   return true;

@@ -10,6 +10,11 @@ import { rcDelay } from './rc-delay';
 import { timer } from './timer';
 import { baud } from './baud';
 import { crystalLoad } from './crystal-load';
+import { clock } from './clock';
+import { divider } from './divider';
+import { pll } from './pll';
+import { canBit } from './can-bit';
+import { watchdog } from './watchdog';
 
 export const circuits: readonly CircuitModel[] = [
   schmittRc,
@@ -22,6 +27,11 @@ export const circuits: readonly CircuitModel[] = [
   timer,
   baud,
   crystalLoad,
+  clock,
+  divider,
+  pll,
+  canBit,
+  watchdog,
 ];
 
 const byId = new Map(circuits.map((model) => [model.id, model]));
