@@ -1,7 +1,7 @@
 // Runs every case in order and prints one table; the exit code is 0 even when a target is missed.
 import { machine, printRows, type Row } from './measure';
 import { bundle } from './activation';
-import { firmwareScan, monteCarlo, noteRescore, spiceRatio, timerSearch } from './cases';
+import { firmwareScan, monteCarlo, noteRescore, pllSearch, spiceRatio, timerSearch } from './cases';
 
 export async function runBench(out: (line: string) => void): Promise<number> {
   out(`Tickmark bench — ${machine()}`);
@@ -10,6 +10,7 @@ export async function runBench(out: (line: string) => void): Promise<number> {
     ['1', firmwareScan],
     ['2', noteRescore],
     ['3', timerSearch],
+    ['3b', pllSearch],
     ['4', spiceRatio],
     ['5', monteCarlo],
     ['6', bundle],
