@@ -94,7 +94,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   analysis.params = finiteOnly(params);
   if (blocked() || plan.unknowns.some((u) => !(u.key in overrides))) return analysis;
 
-  const input = modelInput(plan, params, true);
+  const input = modelInput(plan, params, true, overrides);
   // The parameter table's limits speak first; the model's own check of the same key would only repeat them.
   const limits = limitIssues(model, params);
   const flagged = new Set(limits.map((i) => i.key));

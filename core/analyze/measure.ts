@@ -5,25 +5,52 @@ import type { Plan } from './plan';
 import { finiteOnly } from '../num';
 import { Code } from '../codes';
 export { finiteOnly };
-import { evaluateParams, type Offsets } from './evaluate';
+import { evaluateParams, tolerancedKeys, type Offsets } from './evaluate';
 
 /** The model's input; `nominal` adds each toleranced input's relative band (spread corners move the inputs instead). */
-export function modelInput(plan: Plan, values: Readonly<Record<string, number>>, nominal = false): ModelInput {
+export function modelInput(plan: Plan, values: Readonly<Record<string, number>>, nominal = false, overrides?: Readonly<Record<string, number>>): ModelInput {
   const input: ModelInput = { values, choices: plan.choices, lists: plan.lists, ranges: plan.ranges, name: plan.name };
-  return nominal ? { ...input, tolerances: inputTolerances(plan, values) } : input;
+  return nominal ? { ...input, tolerances: inputTolerances(plan, values, overrides) } : input;
 }
 
-/** Relative bands of the toleranced inputs (an absolute `±0.1 V` over its nominal value). */
-export function inputTolerances(plan: Plan, values: Readonly<Record<string, number>>): Record<string, Band> {
+/** Beyond this many toleranced inputs (2^n corners) the bands come from each key's own tolerance only. */
+const bandCornerLimit = 6;
+
+/**
+ * Relative band of every input that a tolerance moves: its own (`±20 ppm`, an absolute `±0.1 V` over its value)
+ * or one carried in through a reference (`clock: @xtal.frequency`), found over the corners of every toleranced
+ * input of the block, own and upstream, so a key computed from others gets theirs too.
+ */
+export function inputTolerances(plan: Plan, values: Readonly<Record<string, number>>, overrides?: Readonly<Record<string, number>>): Record<string, Band> {
   const bands: Record<string, Band> = {};
-  for (const slot of plan.slots.values()) {
-    const t = slot.tolerance;
-    if (!t || !(t.plus > 0 || t.minus > 0)) continue;
-    if (t.kind === 'relative') bands[slot.key] = { plus: t.plus, minus: t.minus };
-    else {
-      const value = Math.abs(values[slot.key]);
-      if (value > 0 && Number.isFinite(value)) bands[slot.key] = { plus: t.plus / value, minus: t.minus / value };
+  const keys = tolerancedKeys(plan);
+  if (keys.length === 0) return bands;
+  if (keys.length > bandCornerLimit) {
+    for (const slot of plan.slots.values()) {
+      const t = slot.tolerance;
+      if (!t || !(t.plus > 0 || t.minus > 0)) continue;
+      const scale = t.kind === 'relative' ? 1 : Math.abs(values[slot.key]);
+      if (scale > 0 && Number.isFinite(scale)) bands[slot.key] = { plus: t.plus / scale, minus: t.minus / scale };
     }
+    return bands;
+  }
+  const low: Record<string, number> = {};
+  const high: Record<string, number> = {};
+  for (let corner = 0; corner < 1 << keys.length; corner++) {
+    const offsets: Record<string, number> = {};
+    keys.forEach((key, i) => (offsets[key] = corner & (1 << i) ? 1 : -1));
+    const at = evaluateParams(plan, offsets, overrides);
+    for (const [key, value] of Object.entries(at)) {
+      if (!Number.isFinite(value)) continue;
+      if (!(key in low) || value < low[key]) low[key] = value;
+      if (!(key in high) || value > high[key]) high[key] = value;
+    }
+  }
+  for (const [key, nominal] of Object.entries(values)) {
+    if (!(nominal > 0) || !(key in low)) continue;
+    const plus = high[key] / nominal - 1;
+    const minus = 1 - low[key] / nominal;
+    if (plus > 1e-15 || minus > 1e-15) bands[key] = { plus: Math.max(0, plus), minus: Math.max(0, minus) };
   }
   return bands;
 }

@@ -6,7 +6,7 @@ import { circuitById } from '../../core/circuits/registry';
 import { withDefaults } from '../../core/circuits/defaults';
 import type { CircuitModel } from '../../core/circuits/model';
 import { searchCanTiming, canDefaultSets } from '../../core/circuits/can-search';
-import { errors, noteBlock } from '../helpers/analyze';
+import { analyzeText, errors, noteBlock } from '../helpers/analyze';
 
 const can = circuitById('can-bit') as CircuitModel;
 const compute = (values: Record<string, number>) => can.compute(withDefaults(can, { values }));
@@ -101,5 +101,15 @@ describe('can-bit search', () => {
       }),
       { numRuns: 200 },
     );
+  });
+});
+
+describe('can-bit fed by a clock block', () => {
+  it('warns when the referenced clock\'s tolerance exceeds the tolerable one (ISO 11898-1)', () => {
+    const text = (tolerance: string) => ['```timing can-osc', 'circuit: clock', `frequency: 16 MHz ${tolerance}`, '```', '', '```timing bus', 'circuit: can-bit', 'clock: @can-osc', 'prescaler: 2', 'prop-seg: 5', 'phase-seg1: 8', 'phase-seg2: 2', '```', ''].join('\n');
+    const rc = analyzeText('notes/can.md', text('±1%')).blocks[1];
+    assert.ok(rc.findings.some((f) => f.code === 'clock-tolerance' && /±1 %.*0\.3125 %/.test(f.message)));
+    const crystal = analyzeText('notes/can.md', text('±50 ppm')).blocks[1];
+    assert.equal(crystal.findings.some((f) => f.code === 'clock-tolerance'), false);
   });
 });

@@ -2,7 +2,7 @@
 // common practice: a down-counter from reload at clock / prescaler reaches zero after reload + 1 ticks).
 import { strict as assert } from 'assert';
 import { safetyCaution } from '../../core/circuits/common';
-import { errors, noteBlock } from '../helpers/analyze';
+import { analyzeText, errors, noteBlock } from '../helpers/analyze';
 
 const base = ['circuit: watchdog', 'prescaler: 32', 'reload: 999'];
 
@@ -37,5 +37,14 @@ describe('watchdog model', () => {
     const block = noteBlock([...base, 'clock: 32 kHz', 'refresh: 100 ms']);
     assert.ok(block.findings.some((f) => f.code === 'caution' && f.message === safetyCaution));
     assert.match(safetyCaution, /functional-safety standards and licensed practice/);
+  });
+});
+
+describe('watchdog fed by a clock block', () => {
+  it('takes the referenced clock\'s tolerance for the worst case, as if written on its own clock', () => {
+    const text = ['```timing slow-osc', 'circuit: clock', 'frequency: 32 kHz ±40%', '```', '', '```timing dog', 'circuit: watchdog', 'clock: @slow-osc', 'prescaler: 32', 'reload: 999', 'refresh: 800 ms', '```', ''].join('\n');
+    const dog = analyzeText('notes/clocks.md', text).blocks[1];
+    // As above: at +40 % the timeout is 714.3 ms, before the 800 ms refresh.
+    assert.match(errors(dog)[0], /`refresh`.*714\.3 ms.*\+40 %/);
   });
 });
