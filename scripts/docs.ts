@@ -1,10 +1,17 @@
-// `npm run docs`: rewrites the README's circuit section from the parameter tables.
+// `npm run docs`: rewrites the generated sections of the README (circuits) and of docs/blocks.md (circuits and
+// diagnostic codes) from the parameter tables and the codes table.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
 import { withCircuits } from '../core/docs/circuits';
+import { withCodes } from '../core/docs/codes';
 
-const readme = path.join(__dirname, '..', 'README.md');
-const before = fs.readFileSync(readme, 'utf8');
-const after = withCircuits(before);
-if (after !== before) fs.writeFileSync(readme, after);
-console.log(after === before ? 'README circuits section is current' : 'README circuits section rewritten');
+for (const [file, rewrite] of [
+  ['README.md', withCircuits],
+  [path.join('docs', 'blocks.md'), (text: string) => withCodes(withCircuits(text))],
+] as const) {
+  const full = path.join(__dirname, '..', file);
+  const before = fs.readFileSync(full, 'utf8');
+  const after = rewrite(before);
+  if (after !== before) fs.writeFileSync(full, after);
+  console.log(after === before ? `${file}: generated sections are current` : `${file}: generated sections rewritten`);
+}

@@ -3,6 +3,7 @@
 import type { BlockAnalysis } from '../types';
 import { basename, relative } from '../paths';
 import { blockView, cautionMark, severityMark, type BlockView } from './view';
+import { referenceLink } from '../project';
 
 /** Escapes text for Markdown so a block name or value cannot become markup, a link or HTML. */
 export function escapeMarkdown(text: string): string {
@@ -39,7 +40,8 @@ export function hoverMarkdown(analysis: BlockAnalysis, options: HoverOptions = {
 export function viewMarkdown(view: BlockView, options: HoverOptions = {}): string {
   const out: string[] = [];
   out.push(`**${escapeMarkdown(view.name)}** — ${escapeMarkdown(view.title)}`);
-  for (const f of view.problems) out.push(`${severityMark[f.severity]} ${messageMarkdown(f.message)}`);
+  // Each finding links its code's section of the block-language reference (docs/blocks.md).
+  for (const f of view.problems) out.push(`${severityMark[f.severity]} ${messageMarkdown(f.message)} [${code(f.code)}](${referenceLink(f.code)})`);
   // Cautions stand near the top: a hazardous voltage or a watchdog matters more than the third decimal.
   for (const caution of view.cautions) out.push(`${cautionMark} **Caution:** ${messageMarkdown(caution)}`);
   if (!view.modelled) return out.join('\n\n');
@@ -86,6 +88,7 @@ export function viewMarkdown(view: BlockView, options: HoverOptions = {}): strin
   }
   // Assumptions are the model's own text (ours, with inline code), not the document's: listed as written.
   if (view.assumptions.length) out.push('**assumes**\n' + view.assumptions.map((a) => `- ${a}`).join('\n'));
-  for (const f of view.notes) out.push(`${severityMark.info} ${messageMarkdown(f.message)}`);
+  for (const f of view.notes) out.push(`${severityMark.info} ${messageMarkdown(f.message)} [${code(f.code)}](${referenceLink(f.code)})`);
+  out.push(`[block language reference](${referenceLink('keys')})`);
   return out.join('\n\n');
 }
