@@ -55,6 +55,8 @@ export const Code = {
   cInclude: 'c-include',
   cExpansionLimit: 'c-expansion-limit',
   cUndefined: 'c-undefined',
+  /** A firmware name whose value is only known at run time: an extern variable, a function call. */
+  cRuntime: 'c-runtime',
   // files
   fileTooLarge: 'file-too-large',
   fileUnreadable: 'file-unreadable',
@@ -363,6 +365,12 @@ const rows: Record<CodeId, Row> = {
     short: 'A firmware constant expression has undefined behaviour in C.',
     full: 'Signed overflow, a shift count out of range or a float-to-integer overflow: C gives it no value, so neither does Tickmark.',
     help: 'Use unsigned arithmetic or a wider type, as the compiler would need.',
+  },
+  'c-runtime': {
+    severity: 'error',
+    short: 'A firmware name is only known at run time, not a constant.',
+    full: 'An `extern` variable or a function call in a macro has no value until the firmware runs; the finding names the macro, its line and what it reads.',
+    help: 'Give the block the constant the variable is set from, or the value itself.',
   },
   'file-too-large': {
     severity: 'warning',

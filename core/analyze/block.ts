@@ -1,6 +1,6 @@
 // One block from scanned text to every number the engine can say about it.
 import type { BlockAnalysis, BlockEntry, Finding, RawBlock, SolvedPart } from '../types';
-import type { CircuitModel } from '../circuits/model';
+import { isRegisterKey, type CircuitModel } from '../circuits/model';
 import { circuitById, circuits } from '../circuits/registry';
 import { isSafetyName, safetyCaution } from '../circuits/common';
 import { compileValue, parseValue } from '../value';
@@ -205,6 +205,8 @@ function unsignedSuffixHints(raw: RawBlock, model: CircuitModel): Finding[] {
   const firmwareName = (text: string) => text.includes('_') || /\b[A-Z][A-Z0-9]{2,}\b/.test(text);
   for (const entry of raw.entries) {
     const spec = model.params.find((p) => p.key === entry.key);
+    // Register keys are C (`prescaler: 2u` is the unsigned 2), so the hint is for values with a unit only.
+    if (spec?.kind === 'quantity' && isRegisterKey(spec)) continue;
     const plainNumber = spec?.kind === 'quantity' && spec.dim === '';
     if (!plainNumber && !firmwareName(entry.valueText)) continue;
     const pattern = /(?<![\w.])(\d+)[uU](?![\w(])/g;

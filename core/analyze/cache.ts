@@ -13,7 +13,7 @@ interface Entry {
   uri: string;
   analysis: BlockAnalysis;
   /** Every identifier the analysis asked for, with the answer it got. */
-  lookups: Array<{ name: string; dataModel: DataModelName; answer: string }>;
+  lookups: Array<{ name: string; dataModel: DataModelName; answer: string; expression?: boolean }>;
   /** Every block reference it resolved, with the upstream block's fingerprint (or the problem) it got. */
   references: Array<{ ref: BlockRef; answer: string }>;
   /** The plan its results came from, handed to the workspace again when the analysis is reused. */
@@ -87,8 +87,8 @@ export class AnalysisCache {
 }
 
 function optionsSignature(options: AnalyzeOptions): string {
-  const { defaultTolerance, defaultSeries, dataModel, includeDirs, workspaceRoots, maxFileBytes } = options;
-  return JSON.stringify([defaultTolerance, defaultSeries, dataModel, includeDirs, workspaceRoots, maxFileBytes]);
+  const { defaultTolerance, defaultSeries, dataModel, includeDirs, workspaceRoots, maxFileBytes, maxHeaderBytes, macros, compileCommands, trusted } = options;
+  return JSON.stringify([defaultTolerance, defaultSeries, dataModel, includeDirs, workspaceRoots, maxFileBytes, maxHeaderBytes, macros, compileCommands, trusted]);
 }
 
 /**
@@ -122,6 +122,11 @@ function recordingSource(inner: IdentifierSource): { source: IdentifierSource; l
       lookups.push({ name, dataModel, answer: answerOf(found) });
       return found;
     },
+    evaluate(exprText, dataModel) {
+      const found = inner.evaluate(exprText, dataModel);
+      lookups.push({ name: exprText, dataModel, answer: JSON.stringify(found), expression: true });
+      return found;
+    },
     dependencies: () => inner.dependencies(),
     findings: () => inner.findings(),
   };
@@ -139,7 +144,7 @@ function referencesHold(entry: Entry, source: ReferenceSource | undefined): bool
 }
 
 function answersHold(entry: Entry, source: IdentifierSource): boolean {
-  return entry.lookups.every((l) => answerOf(source.lookup(l.name, l.dataModel)) === l.answer);
+  return entry.lookups.every((l) => (l.expression ? JSON.stringify(source.evaluate(l.name, l.dataModel)) : answerOf(source.lookup(l.name, l.dataModel))) === l.answer);
 }
 
 /** The cached analysis at the block's new place: spans inside the old block move by the delta. */

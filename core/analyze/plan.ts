@@ -10,6 +10,7 @@ import { describeDim, toleranceMismatch } from './dims';
 import type { Replay } from './evaluate';
 import { evaluationOrder } from './order';
 import { noReferences, type BlockOutput, type ReferenceSource, type UpstreamInput } from './references';
+import { registerValue } from './registers';
 
 export interface Slot {
   key: string;
@@ -168,6 +169,13 @@ export function buildPlan(
     if (unknown) {
       plan.findings.push(...unknown.findings);
       if (!unknown.findings.some((f) => f.severity === 'error')) plan.unknowns.push({ key: spec.key, spec, entry, span: unknown.span, allowed: unknown.allowed });
+      continue;
+    }
+    const register = registerValue(spec, entry, quantityKeys, source, dataModel);
+    if (register && 'finding' in register) { plan.findings.push(register.finding); continue; }
+    if (register) {
+      for (const id of register.identifiers) if (!plan.identifiers.some((known) => known.name === id.name)) plan.identifiers.push(id);
+      plan.slots.set(spec.key, { key: spec.key, spec, entry, evaluate: () => register.value, blockRefs: [] });
       continue;
     }
     const parsed = parseValue(entry.valueText, entry.valueSpan.start);

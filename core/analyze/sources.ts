@@ -5,27 +5,37 @@ import { Code } from '../codes';
 import { isTooLarge } from '../size';
 import { buildConstantTable, toNumber, type ConstantTable, type DataModel } from '../c';
 import type { AnalyzeOptions, DataModelName, IdentifierLookup, IdentifierSource } from './context';
+import { FirmwareCache } from './firmware';
+import { evaluateIn } from './registers';
 
-/** Constants of one C file, built once per data model on first use. */
+/** Constants of one C file, built once per data model on first use, with the file's build configuration. */
 export function cFileSource(filePath: string, text: string, options: AnalyzeOptions): IdentifierSource {
   const tables = new Map<DataModelName, ConstantTable>();
   const roots = options.workspaceRoots.length ? options.workspaceRoots : [path.dirname(filePath)];
+  const cache = options.firmware ?? new FirmwareCache();
+  let configProblems: Finding[] = [];
   const table = (dataModel: DataModelName): ConstantTable => {
     let found = tables.get(dataModel);
     if (!found) {
+      const { config, problems } = cache.configFor(filePath, { ...options, workspaceRoots: roots });
+      configProblems = problems.map((message) => ({ severity: 'warning', code: Code.cInclude, message, span: { start: 0, end: 0 } }));
       found = buildConstantTable(filePath, text, {
         dataModel: dataModel as DataModel,
         includeDirs: options.includeDirs,
         workspaceRoots: roots,
-        read: options.read,
+        read: (uri) => cache.read(uri, options),
         realpath: options.realpath,
         maxFileBytes: options.maxFileBytes,
+        maxHeaderBytes: options.maxHeaderBytes,
+        config,
+        headerMemo: cache.headers,
       });
       tables.set(dataModel, found);
     }
     return found;
   };
   return {
+    evaluate: (exprText, dataModel) => evaluateIn(table(dataModel), exprText),
     lookup(name, dataModel): IdentifierLookup {
       const resolution = table(dataModel).lookup(name);
       if (!resolution.ok) return { ok: false, message: resolution.message, code: resolution.code || Code.cUnknown };
@@ -42,7 +52,7 @@ export function cFileSource(filePath: string, text: string, options: AnalyzeOpti
     dependencies: () => [...new Set([...tables.values()].flatMap((t) => t.dependencies))],
     findings: () => {
       const first = tables.values().next().value as ConstantTable | undefined;
-      return (first?.findings ?? []).map((f) => ({ ...f }));
+      return [...configProblems, ...(first?.findings ?? []).map((f) => ({ ...f }))];
     },
   };
 }

@@ -12,11 +12,13 @@ export type Decision = 'true' | 'false' | 'unknown';
 
 const UNKNOWN = 'unknown';
 
-export function decideDefined(scope: Scope, name: string): Decision {
+/** `exact`: the build configuration is known, so a name nothing defined is not defined (C11 6.10.1). */
+export function decideDefined(scope: Scope, name: string, exact = false): Decision {
   const b = scope.macro(name);
   if (b?.kind === 'def') return 'true';
   if (b?.kind === 'undef') return 'false';
-  return 'unknown';
+  if (b?.kind === 'conflict') return 'unknown';
+  return exact ? 'false' : 'unknown';
 }
 
 /** In #if, integers act as intmax_t / uintmax_t (C11 6.10.1p4): int and unsigned int are widened to 64 bits. */
@@ -25,7 +27,7 @@ export function preprocessorTypes(ts: TypeSystem): TypeSystem {
 }
 
 export function decideIf(
-  tokens: SourceToken[], scope: Scope, ppTypes: TypeSystem, limits: ExpandLimits,
+  tokens: SourceToken[], scope: Scope, ppTypes: TypeSystem, limits: ExpandLimits, exact = false,
 ): { decision: Decision; problem?: { message: string; tok?: SourceToken; code?: string } } {
   if (tokens.some((t) => t.text === '__has_include' || t.text === '__has_include_next')) return { decision: 'unknown' };
   const replaced: SourceToken[] = [];
@@ -38,7 +40,7 @@ export function decideIf(
       return { decision: 'unknown', problem: { message: "'defined' needs a macro name", tok: t } };
     }
     i += paren ? 3 : 1;
-    const d = decideDefined(scope, name.text);
+    const d = decideDefined(scope, name.text, exact);
     if (d === 'unknown') return { decision: 'unknown' };
     replaced.push({ ...name, kind: 'number', text: d === 'true' ? '1' : '0' });
   }
@@ -47,7 +49,12 @@ export function decideIf(
   if (isError(expanded)) return { decision: 'unknown', problem: { message: expanded.err, tok: expanded.tok } };
   const node = parseExpression(expanded, () => undefined);
   if ('error' in node) return { decision: 'unknown', problem: { message: node.error, tok: node.tok } };
-  const value = evaluate(node, { ts: ppTypes, pp: true, identifier: (tok) => ({ err: tok.text, code: UNKNOWN, tok }) });
+  // After expansion, an identifier left in #if is 0 (C11 6.10.1p4); without a configuration it may be a -D.
+  const identifier = (tok: SourceToken) => {
+    const b = scope.macro(tok.text);
+    return exact && b?.kind !== 'conflict' ? { v: 0n, t: ppTypes.int } : { err: tok.text, code: UNKNOWN, tok };
+  };
+  const value = evaluate(node, { ts: ppTypes, pp: true, identifier });
   if (isError(value)) {
     if (value.code === UNKNOWN) return { decision: 'unknown' };
     return { decision: 'unknown', problem: { message: value.err, tok: value.tok, code: value.code === Code.cUndefined ? value.code : undefined } };

@@ -9,13 +9,15 @@ export interface DeclarationSink {
   typedef(def: TypedefDef): void;
   /** A typedef name or a <stdint.h> name; a conflict for a typedef that undecided #if branches define apart. */
   typeNamed(name: string): CType | TypeConflict | undefined;
+  /** Object-like macros in effect here expanded, so `#define ST uint32_t` / `typedef ST tick_t;` reads as the compiler does. */
+  expandType(tokens: SourceToken[]): SourceToken[];
   lineOf(tok: SourceToken): number;
 }
 
 const STORAGE = new Set(['static', 'extern', 'register', 'inline', '_Thread_local', 'thread_local', 'constexpr', 'const', 'volatile', 'typedef', 'auto']);
 
 /** The words without which a statement neither declares a constant or typedef nor opens an enum body. */
-export const DECLARING = new Set(['enum', 'const', 'constexpr', 'typedef']);
+export const DECLARING = new Set(['enum', 'const', 'constexpr', 'typedef', 'extern']);
 
 interface EnumState { depth: number; member: SourceToken[]; previous?: string; chainEpoch: number; memberEpoch: number; conditional: boolean }
 
@@ -33,6 +35,11 @@ export class DeclarationScanner {
     if (this.enumState) return false;
     for (const t of this.statement) if (t.kind === 'ident' && DECLARING.has(t.text)) return false;
     return true;
+  }
+
+  /** Nothing at all is pending: a header read from here reads the same wherever it is included. */
+  idle(): boolean {
+    return !this.enumState && this.statement.length === 0;
   }
 
   /** A statement boundary the caller skipped over while quiet. */
@@ -92,7 +99,10 @@ export class DeclarationScanner {
     this.sink.declare(d);
   }
 
-  private declaration(tokens: SourceToken[]): void {
+  private declaration(statement: SourceToken[]): void {
+    let lead = 0;
+    while (lead < statement.length && statement[lead].kind === 'ident') lead++;
+    const tokens = lead ? [...this.sink.expandType(statement.slice(0, lead)), ...statement.slice(lead)] : statement;
     let i = 0;
     const words: string[] = [];
     const typeWords: string[] = [];
@@ -120,6 +130,16 @@ export class DeclarationScanner {
     }
     const conflict = found?.kind === 'conflict' ? found.message : undefined;
     const type = found?.kind === 'conflict' ? undefined : found;
+    if (words.includes('extern') && !words.includes('constexpr') && type) {
+      // `extern uint32_t clock_hz;`: a name the firmware reads at run time, never a constant here.
+      for (; i < tokens.length; i++) {
+        const name = tokens[i];
+        if (name.kind !== 'ident' || (tokens[i + 1] && tokens[i + 1].text !== ',')) return;
+        this.sink.declare({ name: name.text, kind: 'runtime', type, uri: name.uri, line: this.sink.lineOf(name), nameSpan: { start: name.start, end: name.end }, span: { start: tokens[0].start, end: name.end } });
+        i++;
+      }
+      return;
+    }
     const isAuto = words.includes('auto') && !type && typeWords.length === 0;
     if (!(words.includes('const') || words.includes('constexpr')) || (!type && !isAuto && !conflict)) return;
     // Declarators: NAME = initialiser, separated by commas at depth 0; pointers, arrays and functions are skipped.

@@ -12,6 +12,8 @@ export interface EvalError {
   err: string; code: string; tok?: SourceToken;
   /** The message already names the constant whose definition holds the problem. */
   named?: boolean;
+  /** For a run-time value: what the expression reads, after "it" (`calls read_clock()`). */
+  runtime?: string;
 }
 export type EvalResult = Val | EvalError;
 
@@ -88,6 +90,8 @@ export function evaluate(node: Node, ctx: EvalContext, live = true): EvalResult 
     }
     case 'binary':
       return binary(node, ctx, live);
+    case 'call':
+      return { err: `${node.tok.text}() is a function call: its value is only known at run time`, code: Code.cRuntime, tok: node.tok, runtime: `calls ${node.tok.text}()` };
   }
 }
 

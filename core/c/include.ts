@@ -1,13 +1,27 @@
-// Quoted #include: relative to the including file, then the include folders; never outside the workspace roots.
+// #include lookup in gcc's order (gcc manual, "Search Path", from memory): `"…"` searches the including file's
+// folder, then -iquote, then -I; `<…>` searches -I, then -isystem. The include settings come last for both.
+// A path is read only inside an allowed root: the workspace, plus the folders the build configuration names.
 import * as path from 'node:path';
 
 export interface IncludeEnv {
+  /** Include folders from the settings or `--include`, searched for both forms after the build's own. */
   includeDirs: string[];
   workspaceRoots: string[];
   read: (uri: string) => string | undefined;
-  /** When given, a symlink whose target leaves the workspace is not followed. */
+  /** When given, a symlink whose target leaves the allowed roots is not followed. */
   realpath?: (uri: string) => string | undefined;
 }
+
+/** The folders of one file's build configuration (absolute), in command-line order. */
+export interface SearchDirs {
+  quote: string[];
+  include: string[];
+  system: string[];
+  /** Roots outside the workspace the configuration may read (its folders; only in a trusted workspace). */
+  extraRoots: string[];
+}
+
+export const noSearchDirs: SearchDirs = { quote: [], include: [], system: [], extraRoots: [] };
 
 export type IncludeResult =
   | { kind: 'found'; uri: string; text: string }
@@ -19,9 +33,12 @@ export function isInside(file: string, root: string): boolean {
   return relative === '' || (!relative.startsWith('..') && !path.isAbsolute(relative));
 }
 
-export function resolveInclude(fromUri: string, spelled: string, env: IncludeEnv): IncludeResult {
-  const roots = env.workspaceRoots;
-  const folders = [path.dirname(fromUri), ...env.includeDirs.map((d) => path.resolve(roots[0] ?? path.dirname(fromUri), d))];
+export function resolveInclude(fromUri: string, spelled: string, env: IncludeEnv, dirs: SearchDirs = noSearchDirs, angled = false): IncludeResult {
+  const roots = [...env.workspaceRoots, ...dirs.extraRoots];
+  const settings = env.includeDirs.map((d) => path.resolve(env.workspaceRoots[0] ?? path.dirname(fromUri), d));
+  const folders = angled
+    ? [...dirs.include, ...dirs.system, ...settings]
+    : [path.dirname(fromUri), ...dirs.quote, ...dirs.include, ...settings];
   const looked: string[] = [];
   let outside: string | undefined;
   for (const folder of folders) {

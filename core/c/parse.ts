@@ -10,6 +10,7 @@ export type Node = (
   | { k: 'cond'; c: Node; a: Node; b: Node; tok: SourceToken }
   | { k: 'cast'; type: CType; arg: Node; tok: SourceToken }
   | { k: 'sizeof'; type?: CType; arg?: Node; tok: SourceToken }
+  | { k: 'call'; tok: SourceToken; args: Node[] }
 ) & Parenthesised;
 
 /** Set on a parenthesised expression: its '(' and ')', so a finding can cover the whole of it. */
@@ -69,7 +70,24 @@ export function parseExpression(tokens: SourceToken[], typedefName: (name: strin
     if (t.error) fail(t.error, t);
     if (t.kind === 'number') { pos++; return { k: 'num', tok: t }; }
     if (t.kind === 'char') { pos++; return { k: 'char', tok: t }; }
-    if (t.kind === 'ident') { pos++; return { k: 'ident', tok: t }; }
+    if (t.kind === 'ident') {
+      pos++;
+      // A call is no constant expression (C11 6.6p3), but it is parsed so the finding can say what it is.
+      if (peek()?.text === '(' && peek()?.kind === 'punct') {
+        pos++;
+        const args: Node[] = [];
+        if (peek()?.text !== ')') {
+          for (;;) {
+            args.push(conditional());
+            if (peek()?.text !== ',') break;
+            pos++;
+          }
+        }
+        expect(')');
+        return { k: 'call', tok: t, args };
+      }
+      return { k: 'ident', tok: t };
+    }
     if (t.text === '(') {
       pos++;
       const inner = conditional();

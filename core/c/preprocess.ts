@@ -1,20 +1,41 @@
 // Walks a translation unit: directives (#define, #undef, #include "…", conditionals) and, on live lines,
 // the declaration scanner. Problems become findings with spans into the file they sit in; nothing throws.
+import * as path from 'node:path';
 import { Code } from '../codes';
 import type { Finding, Severity } from '../types';
+import { BUILTIN_URI_PREFIX, builtinHeader, BUILTIN_HEADERS, compilerPredefines } from './builtins';
 import { decideDefined, decideIf, preprocessorTypes, type Decision } from './conditions';
+import type { BuildConfig } from './config';
 import type { TypeSystem } from './ctypes';
-import { DeclarationScanner } from './declarations';
-import { resolveInclude, type IncludeEnv } from './include';
-import { DEFAULT_LIMITS, type ExpandLimits, type MacroDef } from './macros';
-import { mergeBranches, Scope } from './scope';
+import { DeclarationScanner, type DeclarationSink } from './declarations';
+import { noSearchDirs, resolveInclude, type IncludeEnv } from './include';
+import { isError } from './evaluate';
+import { DEFAULT_LIMITS, expandMacros, type ExpandLimits, type MacroDef } from './macros';
+import { findEffect, storeEffect, type HeaderEffect, type HeaderMemo } from './memo';
+import { conditionText, mergeBranches, Scope } from './scope';
 import { emptySkim, skimLine } from './skim';
 import { lineIndex, tokenizeSourceRange, type SourceToken } from './tokens';
 
 export interface PreprocessOptions extends IncludeEnv {
   ts: TypeSystem;
   maxFileBytes: number;
+  /** Headers above this are skipped with a warning at their #include (default: maxFileBytes). */
+  maxHeaderBytes?: number;
   limits?: ExpandLimits;
+  /**
+   * The file's build configuration. With one, preprocessing follows C exactly: a name nothing defines is not
+   * defined. Without one, a condition on such a name is undecided and both branches are tracked.
+   */
+  config?: BuildConfig;
+  /** Headers already preprocessed, shared between tables (see memo.ts). */
+  headerMemo?: HeaderMemo;
+}
+
+/** A header being read with its effect recorded for the memo. */
+interface Recording {
+  files: Map<string, string>;
+  /** Something made this reading depend on where it happened (an include cycle, a limit): not stored. */
+  spoiled: boolean;
 }
 
 export interface PreprocessResult {
@@ -22,7 +43,12 @@ export interface PreprocessResult {
   root: Scope;
   findings: Array<Finding & { uri: string }>;
   dependencies: string[];
+  /** Headers not found, as spelled (`<avr/io.h>`, `"board.h"`), for the message of a name left undefined. */
+  missing: string[];
 }
+
+/** The command line's own macros stand in a file of this name, as gcc calls it. */
+export const COMMAND_LINE_URI = '<command line>';
 
 interface Frame {
   parentLive: boolean;
@@ -33,6 +59,8 @@ interface Frame {
   live: boolean;
   elseSeen: boolean;
   at: SourceToken;
+  /** The first condition of the group this file could not decide, as written with its place. */
+  undecided?: string;
 }
 
 const MAX_INCLUDE_DEPTH = 200;
@@ -44,33 +72,52 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
   const root = new Scope();
   const findings: Array<Finding & { uri: string }> = [];
   const dependencies = new Set<string>();
+  const missing: string[] = [];
+  const exact = options.config !== undefined;
+  const maxHeaderBytes = options.maxHeaderBytes ?? options.maxFileBytes;
   const lineOfFile = new Map<string, (offset: number) => number>();
   let current = root;
   let epoch = 0;
   let includes = 0;
+  const recordings: Recording[] = [];
+  const memo = options.headerMemo;
+  // Everything besides the header's text and the names it reads that shapes how it reads.
+  const memoContext = memo ? JSON.stringify([
+    options.ts.model, options.ts.named.get('char')?.kind === 'int' && (options.ts.named.get('char') as { signed: boolean }).signed,
+    exact, options.config?.dirs, options.includeDirs, options.workspaceRoots, options.maxFileBytes, maxHeaderBytes, limits,
+  ]) : '';
 
   const report = (tok: SourceToken | { uri: string; start: number; end: number }, code: string, message: string, severity: Severity = 'warning'): void => {
     findings.push({ severity, code, message, uri: tok.uri, span: { start: tok.start, end: tok.end } });
   };
-  const scanner = new DeclarationScanner({
+  const scannerSink: DeclarationSink = {
     declare: (d) => current.decls.set(d.name, { kind: 'def', def: d }),
     typedef: (def) => current.typedefs.set(def.name, { kind: 'def', def }),
     typeNamed: (name) => current.typeNamed(name) ?? options.ts.named.get(name),
+    expandType: (tokens) => {
+      const lookup = (n: string): MacroDef | undefined => { const b = current.macro(n); return b?.kind === 'def' && !b.def.params ? b.def : undefined; };
+      if (!tokens.some((t) => lookup(t.text))) return tokens;
+      const expanded = expandMacros(tokens, lookup, limits);
+      return isError(expanded) ? tokens : expanded;
+    },
     lineOf: (tok) => lineOfFile.get(tok.uri)?.(tok.start) ?? 1,
-  });
+  };
+  const scanner = new DeclarationScanner(scannerSink);
 
   const processFile = (uri: string, source: string, stack: string[]): void => {
     dependencies.add(uri);
+    for (const r of recordings) r.files.set(uri, source);
     lineOfFile.set(uri, lineIndex(source));
     const frames: Frame[] = [];
     const live = (): boolean => frames.length === 0 || frames[frames.length - 1].live;
 
-    const enterBranch = (f: Frame, d: Decision): void => {
+    const enterBranch = (f: Frame, d: Decision, line: SourceToken[]): void => {
+      if (d === 'unknown' && f.undecided === undefined) f.undecided = conditionText(line, lineOfFile.get(uri)?.(line[0].start) ?? 1);
       if (!f.parentLive || f.taken || d === 'false') { f.live = false; current = f.base; }
       else if (d === 'true' && !f.unknownSoFar) { f.live = true; f.taken = true; current = f.base; }
       else {
         f.live = true;
-        current = new Scope(f.base);
+        current = new Scope(f.base, f.undecided);
         f.branches.push(current);
         if (d === 'true') f.taken = true;
         epoch++;
@@ -88,11 +135,11 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
       if (!f && !live()) return 'false';
       if (directive === 'ifdef' || directive === 'ifndef') {
         if (args[0]?.kind !== 'ident') { report(hash, Code.cSyntax, `#${directive} needs a macro name`); return 'unknown'; }
-        const d = decideDefined(current, args[0].text);
+        const d = decideDefined(current, args[0].text, exact);
         return directive === 'ifdef' || d === 'unknown' ? d : d === 'true' ? 'false' : 'true';
       }
       if (args.length === 0) { report(hash, Code.cSyntax, `#${directive} needs a condition`); return 'unknown'; }
-      const r = decideIf(args, current, ppTypes, limits);
+      const r = decideIf(args, current, ppTypes, limits, exact);
       if (r.problem) report(r.problem.tok?.uri === uri ? r.problem.tok : line[1], r.problem.code ?? Code.cSyntax, `#${directive}: ${r.problem.message}`);
       return r.decision;
     };
@@ -150,7 +197,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
         const f: Frame = { parentLive: live(), base: current, branches: [], taken: false, unknownSoFar: false, live: false, elseSeen: false, at: hash };
         const d = decide(undefined, line, hash);
         frames.push(f);
-        enterBranch(f, d);
+        enterBranch(f, d, line);
       } else if (name === 'elif' || name === 'else') {
         if (!top) { report(hash, Code.cSyntax, `#${name} without #if`); continue; }
         if (top.elseSeen) { report(hash, Code.cSyntax, `#${name} after #else`); continue; }
@@ -158,7 +205,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
         // Each later branch is decided in the state before the group: the branches before it were not taken.
         current = top.base;
         const d = name === 'else' ? (top.parentLive && !top.taken ? 'true' : 'false') : decide(top, line, hash);
-        enterBranch(top, d);
+        enterBranch(top, d, line);
       } else if (name === 'endif') {
         if (!top) { report(hash, Code.cSyntax, '#endif without #if'); continue; }
         frames.pop();
@@ -214,29 +261,151 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     current.macros.set(def.name, { kind: 'def', def });
   };
 
+  const inUndecidedBranch = (): boolean => {
+    for (let s: Scope | undefined = current; s; s = s.parent) if (s.condition !== undefined) return true;
+    return false;
+  };
+
+  /** The header a directive names: `"…"`, `<…>`, or a macro that expands to either (C11 6.10.2p4). */
+  const includeTarget = (line: SourceToken[]): { spelled: string; angled: boolean } | undefined => {
+    let tokens = line.slice(2);
+    if (tokens[0]?.kind === 'ident') {
+      const lookup = (n: string): MacroDef | undefined => { const b = current.macro(n); return b?.kind === 'def' ? b.def : undefined; };
+      const expanded = expandMacros(tokens, lookup, limits);
+      if (isError(expanded)) return undefined;
+      tokens = expanded;
+    }
+    const first = tokens[0];
+    if (first?.kind === 'string' && first.text.startsWith('"') && !first.error) return { spelled: first.text.slice(1, -1), angled: false };
+    if (first?.text !== '<') return undefined;
+    const close = tokens.findIndex((t) => t.text === '>');
+    if (close < 0) return undefined;
+    // Spelled as written: the tokens of `<avr/io.h>` joined back where they stand side by side.
+    let spelled = '';
+    for (let k = 1; k < close; k++) spelled += (k > 1 && tokens[k].start > tokens[k - 1].end && tokens[k].uri === tokens[k - 1].uri ? ' ' : '') + tokens[k].text;
+    return { spelled, angled: true };
+  };
+
   const include = (line: SourceToken[], uri: string, stack: string[]): void => {
     const target = line[2];
-    if (!target || target.text.startsWith('<') || target.text === '<') return; // <system> headers are not followed
-    if (target.kind !== 'string' || !target.text.startsWith('"') || target.error) {
-      report(target, Code.cInclude, 'computed #include is not followed', 'info');
+    if (!target) { report(line[0], Code.cSyntax, '#include needs a header name'); return; }
+    const named = includeTarget(line);
+    // An #include in a branch this file cannot decide may be another platform's: a problem there stays quiet.
+    const quiet = inUndecidedBranch();
+    if (!named) {
+      if (!quiet) report(target, Code.cInclude, 'computed #include is not followed', 'info');
       return;
     }
-    const spelled = target.text.slice(1, -1);
-    const found = resolveInclude(uri, spelled, options);
-    if (found.kind === 'outside') { report(target, Code.cInclude, `"${spelled}" resolves outside the workspace (${found.uri}); not read`); return; }
-    if (found.kind === 'missing') { report(target, Code.cInclude, `cannot find or read "${spelled}" (looked in ${found.looked.join(', ') || 'no folder inside the workspace'}; files above the size limit are not read)`, 'info'); return; }
+    const { spelled, angled } = named;
+    const shown = angled ? `<${spelled}>` : `"${spelled}"`;
+    const at = { uri, start: target.start, end: line[line.length - 1].end };
+    const dirs = options.config?.dirs ?? noSearchDirs;
+    const found = BUILTIN_HEADERS.has(spelled) && angled ? undefined : resolveInclude(uri, spelled, options, dirs, angled);
+    if (!found || (found.kind === 'missing' && BUILTIN_HEADERS.has(spelled))) {
+      const builtin = builtinHeader(spelled, options.ts) as string;
+      if (!stack.includes(BUILTIN_URI_PREFIX + spelled)) processFile(BUILTIN_URI_PREFIX + spelled, builtin, [...stack, BUILTIN_URI_PREFIX + spelled]);
+      return;
+    }
+    if (found.kind === 'outside') {
+      if (!quiet) report(at, Code.cInclude, `${shown} resolves outside the workspace and the folders the build names (${found.uri}); not read`);
+      return;
+    }
+    if (found.kind === 'missing') {
+      missing.push(shown);
+      if (quiet) return;
+      const where = found.looked.length ? `looked in ${found.looked.map((f) => path.dirname(f)).join(', ')}` : 'no include folder is configured';
+      // A system header not on the search path is normal (the C library); a project header that is missing is not.
+      if (angled) report(at, Code.cInclude, `${shown} not found (${where}); give its folder with -I, -isystem or compile_commands.json to read it`, 'info');
+      else report(at, Code.cInclude, `cannot find ${shown} (${where}); its constants are not read`);
+      return;
+    }
     // One re-entry is allowed so an include guard can end it quietly; a second means the cycle is unguarded.
-    if (stack.filter((u) => u === found.uri).length >= 2) { report(target, Code.cInclude, `"${spelled}" includes itself (${[...stack, found.uri].join(' → ')}); not followed again`); return; }
-    if (stack.length >= MAX_INCLUDE_DEPTH || ++includes > MAX_INCLUDES) { report(target, Code.cExpansionLimit, `too many nested or repeated includes; "${spelled}" not read`); return; }
-    if (found.text.length > options.maxFileBytes) { report(target, Code.fileTooLarge, `"${spelled}" is larger than ${options.maxFileBytes} bytes; not read`); return; }
-    processFile(found.uri, found.text, [...stack, found.uri]);
+    if (stack.filter((u) => u === found.uri).length >= 2) { spoil(); report(at, Code.cInclude, `${shown} includes itself (${[...stack, found.uri].join(' → ')}); not followed again`); return; }
+    if (stack.length >= MAX_INCLUDE_DEPTH || ++includes > MAX_INCLUDES) { spoil(); report(at, Code.cExpansionLimit, `too many nested or repeated includes; ${shown} not read`); return; }
+    if (found.text.length > maxHeaderBytes) {
+      report(at, Code.fileTooLarge, `${shown} is larger than the header size limit of ${Math.round(maxHeaderBytes / 1024)} KB (tickmark.c.maxHeaderSizeKB, --max-header-kb); not read`);
+      return;
+    }
+    if (memo && scanner.idle()) readRecorded(found.uri, found.text, [...stack, found.uri], quiet);
+    else processFile(found.uri, found.text, [...stack, found.uri]);
+  };
+
+  const spoil = (): void => { for (const r of recordings) r.spoiled = true; };
+
+  /** Reads a header through the memo: its stored effect when every name it read is unchanged, else afresh. */
+  const readRecorded = (uri: string, source: string, stack: string[], quiet: boolean): void => {
+    const memoMap = memo as HeaderMemo;
+    const context = memoContext + (quiet ? '|quiet' : '');
+    const here = {
+      macro: (n: string) => current.macro(n),
+      decl: (n: string) => current.decl(n),
+      typedef: (n: string) => current.typedef(n),
+      read: options.read,
+    };
+    const stored = findEffect(memoMap, uri, source, context, here);
+    if (stored) { replay(stored); return; }
+    const outer = current;
+    const layer = new Scope(outer);
+    layer.reads = { macros: new Map(), decls: new Map(), typedefs: new Map() };
+    const recording: Recording = { files: new Map(), spoiled: false };
+    const before = { findings: findings.length, missing: missing.length, includes };
+    recordings.push(recording);
+    current = layer;
+    try {
+      processFile(uri, source, stack);
+    } finally {
+      recordings.pop();
+      current = outer;
+    }
+    for (const [n, b] of layer.macros) outer.macros.set(n, b);
+    for (const [n, b] of layer.decls) outer.decls.set(n, b);
+    for (const [n, b] of layer.typedefs) outer.typedefs.set(n, b);
+    if (recording.spoiled || !scanner.idle()) { spoil(); return; }
+    storeEffect(memoMap, uri, {
+      context, text: source, files: [...recording.files],
+      macroReads: layer.reads.macros, declReads: layer.reads.decls, typedefReads: layer.reads.typedefs,
+      macros: layer.macros, decls: layer.decls, typedefs: layer.typedefs,
+      findings: findings.slice(before.findings), missing: missing.slice(before.missing), includes: includes - before.includes,
+    });
+  };
+
+  const replay = (e: HeaderEffect): void => {
+    for (const [file, text] of e.files) { dependencies.add(file); for (const r of recordings) r.files.set(file, text); }
+    for (const [n, b] of e.macros) current.macros.set(n, b);
+    for (const [n, b] of e.decls) current.decls.set(n, b);
+    for (const [n, b] of e.typedefs) current.typedefs.set(n, b);
+    findings.push(...e.findings);
+    missing.push(...e.missing);
+    includes += e.includes;
+    if (e.decls.size) epoch++;
+  };
+
+  /** The compiler's own macros, then -D / -U in order, then -include files: what gcc reads before the file. */
+  const prelude = (): void => {
+    processFile(BUILTIN_URI_PREFIX + 'predefined', compilerPredefines(options.ts), []);
+    const config = options.config;
+    if (!config) return;
+    for (const m of config.macros) {
+      if (m.kind === 'undef') { current.macros.set(m.name, { kind: 'undef' }); continue; }
+      // `-D NAME=VALUE` is `#define NAME VALUE` (gcc manual); the text is tokenized as a line of its own.
+      const lineText = `#define ${m.name} ${m.value}`;
+      define(tokenizeSourceRange(lineText, 0, lineText.length, COMMAND_LINE_URI, []), COMMAND_LINE_URI, 1);
+    }
+    for (const file of config.forcedIncludes) {
+      const text = options.read(file);
+      if (text === undefined) { findings.push({ severity: 'warning', code: Code.cInclude, message: `cannot read ${file}, named by -include in ${config.origin}`, uri: entryUri, span: { start: 0, end: 0 } }); continue; }
+      if (text.length > maxHeaderBytes) { findings.push({ severity: 'warning', code: Code.fileTooLarge, message: `${file} (-include) is larger than the header size limit; not read`, uri: entryUri, span: { start: 0, end: 0 } }); continue; }
+      processFile(file, text, [file]);
+    }
   };
 
   if (text.length > options.maxFileBytes) {
     findings.push({ severity: 'warning', code: Code.fileTooLarge, message: `file is larger than ${options.maxFileBytes} bytes; constants not read`, uri: entryUri, span: { start: 0, end: 0 } });
     dependencies.add(entryUri);
   } else {
+    prelude();
     processFile(entryUri, text, [entryUri]);
   }
-  return { root, findings, dependencies: [...dependencies] };
+  for (const d of [...dependencies]) if (d.startsWith(BUILTIN_URI_PREFIX) || d === COMMAND_LINE_URI) dependencies.delete(d);
+  return { root, findings, dependencies: [...dependencies], missing };
 }

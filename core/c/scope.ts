@@ -6,12 +6,27 @@ import type { MacroDef } from './macros';
 import type { SourceToken } from './tokens';
 import type { Span } from '../types';
 
-export type Binding<T> = { kind: 'def'; def: T } | { kind: 'undef' } | { kind: 'conflict'; defs: T[] };
+export type Binding<T> = { kind: 'def'; def: T } | { kind: 'undef' } | { kind: 'conflict'; defs: T[]; conditions: string[] };
+
+/** An undecided directive as a finding names it: `#ifdef CONF_DIV` (config.h:2). */
+export function conditionText(line: SourceToken[], lineNumber: number): string {
+  let text = '';
+  for (let k = 0; k < line.length; k++) {
+    const t = line[k];
+    if (t.kind === 'newline') break;
+    const gap = k > 1 && t.start > line[k - 1].end ? ' ' : '';
+    text += (k === 1 ? '' : gap) + t.text;
+    if (text.length > 80) { text = text.slice(0, 77) + '…'; break; }
+  }
+  return `\`${text}\` (${line[0].uri.split(/[\\/]/).pop()}:${lineNumber})`;
+}
+
 
 /** An `enum` constant or a `const`/`constexpr` variable, kept unevaluated until looked up. */
 export interface Declaration {
   name: string;
-  kind: 'enum' | 'const';
+  /** `runtime`: an `extern` variable, whose value only the running firmware knows. */
+  kind: 'enum' | 'const' | 'runtime';
   /** Declared type of a const variable; undefined for enum constants and `auto`. */
   type?: CType;
   /** Initialiser or explicit enum value; undefined for an implicit enum value. */
@@ -48,14 +63,13 @@ export class Scope {
   readonly macros = new Map<string, Binding<MacroDef>>();
   readonly decls = new Map<string, Binding<Declaration>>();
   readonly typedefs = new Map<string, Binding<TypedefDef>>();
-  constructor(readonly parent?: Scope) {}
+  /** `condition`: for a branch of an undecided #if, the directive that opened its group. */
+  constructor(readonly parent?: Scope, readonly condition?: string) {}
+  /** Set on a header's own layer: every name it looks up beyond itself, with the answer it got (core/c/memo.ts). */
+  reads?: ScopeReads;
 
   typedef(name: string): Binding<TypedefDef> | undefined {
-    for (let s: Scope | undefined = this; s; s = s.parent) {
-      const b = s.typedefs.get(name);
-      if (b) return b;
-    }
-    return undefined;
+    return this.find(name, 'typedefs');
   }
 
   /** A typedef name in effect here; a conflict when undecided #if branches typedef it differently. */
@@ -68,20 +82,33 @@ export class Scope {
   }
 
   macro(name: string): Binding<MacroDef> | undefined {
-    for (let s: Scope | undefined = this; s; s = s.parent) {
-      const b = s.macros.get(name);
-      if (b) return b;
-    }
-    return undefined;
+    return this.find(name, 'macros');
   }
 
   decl(name: string): Binding<Declaration> | undefined {
-    for (let s: Scope | undefined = this; s; s = s.parent) {
-      const b = s.decls.get(name);
-      if (b) return b;
-    }
-    return undefined;
+    return this.find(name, 'decls');
   }
+
+  private find<K extends keyof ScopeReads>(name: string, kind: K): ReturnType<ScopeReads[K]['get']> {
+    type B = ReturnType<ScopeReads[K]['get']>;
+    for (let s: Scope | undefined = this; s; s = s.parent) {
+      const b = (s[kind] as Map<string, unknown>).get(name);
+      if (b) return b as B;
+      if (s.reads) {
+        const outer = s.parent?.find(name, kind) as B;
+        const reads = s.reads[kind] as Map<string, unknown>;
+        if (!reads.has(name)) reads.set(name, outer);
+        return outer;
+      }
+    }
+    return undefined as B;
+  }
+}
+
+export interface ScopeReads {
+  macros: Map<string, Binding<MacroDef> | undefined>;
+  decls: Map<string, Binding<Declaration> | undefined>;
+  typedefs: Map<string, Binding<TypedefDef> | undefined>;
 }
 
 /** Merges branch layers into their base. `fallThrough`: no branch need be taken, so the base state is a path too. */
@@ -101,14 +128,16 @@ function mergeMap<T>(
     const paths = branches.map((b) => find(b, name));
     if (fallThrough) paths.push(find(base, name));
     const defs: T[] = [];
+    const conditions = new Set<string>();
+    for (const b of branches) if (b.condition) conditions.add(b.condition);
     const add = (d: T): void => { if (!defs.some((x) => same(x, d))) defs.push(d); };
     let undef = false;
     for (const p of paths) {
       if (p?.kind === 'def') add(p.def);
-      else if (p?.kind === 'conflict') p.defs.forEach(add);
+      else if (p?.kind === 'conflict') { p.defs.forEach(add); p.conditions.forEach((c) => conditions.add(c)); }
       else if (p?.kind === 'undef') undef = true;
     }
-    if (defs.length > 1) own(base).set(name, { kind: 'conflict', defs });
+    if (defs.length > 1) own(base).set(name, { kind: 'conflict', defs, conditions: [...conditions] });
     else if (defs.length === 1) own(base).set(name, { kind: 'def', def: defs[0] });
     else if (undef) own(base).set(name, { kind: 'undef' });
   }

@@ -9,7 +9,7 @@ export interface SkimmedLine {
   /** The first token is `#` (not `##`). */
   directive: boolean;
   /**
-   * An identifier spelled `enum`, `const`, `constexpr` or `typedef` may stand in the line. Erring towards
+   * An identifier spelled `enum`, `const`, `constexpr`, `extern` or `typedef` may stand in the line. Erring towards
    * true is safe (the line is then tokenized); a keyword is never missed.
    */
   keyword: boolean;
@@ -30,6 +30,7 @@ function isKeyword(text: string, start: number, length: number): boolean {
   switch (length) {
     case 4: return text.startsWith('enum', start);
     case 5: return text.startsWith('const', start);
+    case 6: return text.startsWith('extern', start);
     case 7: return text.startsWith('typedef', start);
     case 9: return text.startsWith('constexpr', start);
     default: return false;

@@ -6,6 +6,8 @@ import { convert, fits, typeSystem, type CType, type DataModel, type TypeConflic
 import { evaluate, isError, type EvalError, type EvalResult } from './evaluate';
 import { expandMacros, type MacroDef } from './macros';
 import { parseExpression } from './parse';
+import type { BuildConfig } from './config';
+import type { HeaderMemo } from './memo';
 import { preprocess } from './preprocess';
 import type { Declaration } from './scope';
 import { tokenizeSource, withHide, type SourceToken } from './tokens';
@@ -26,7 +28,7 @@ export interface ConstantDefinition {
 
 export type ConstantResolution =
   | { ok: true; value: CValue; definition: ConstantDefinition }
-  | { ok: false; message: string; code: string; at?: { uri: string; span: Span }; definition?: ConstantDefinition };
+  | { ok: false; message: string; code: string; at?: { uri: string; span: Span }; definition?: ConstantDefinition; runtime?: string };
 
 export type ExpressionResult = { ok: true; value: CValue } | { ok: false; message: string; code: string; span?: Span };
 
@@ -47,6 +49,24 @@ export interface ConstantTableOptions {
   maxFileBytes?: number;
   /** Plain char signed (x86, AVR gcc) or unsigned (ARM, RISC-V); by default unsigned under ilp32 only. */
   charSigned?: boolean;
+  /** Headers above this many bytes are skipped with a warning (default 8 MB). */
+  maxHeaderBytes?: number;
+  /** The file's build configuration (compile_commands.json, -D/-U/-I); without one, undecided #if is tracked both ways. */
+  config?: BuildConfig;
+  /** Preprocessed headers shared between tables, so an unchanged header is not read again. */
+  headerMemo?: HeaderMemo;
+}
+
+/** Vendor device headers run to 2 MB; 8 MB leaves room without reading anything unbounded. */
+export const DEFAULT_MAX_HEADER_BYTES = 8 * 1024 * 1024;
+
+/** How to settle what the file alone cannot decide, named in every c-conditional finding about it. */
+function undecidedNote(conditions: string[]): string {
+  if (conditions.length === 0) return 'the value depends on the build configuration';
+  const names = new Set<string>();
+  for (const c of conditions) for (const m of /`[^`]*`/.exec(c)?.[0].matchAll(/\b(?!defined\b|if\b|ifdef\b|ifndef\b|elif\b)[A-Za-z_]\w*/g) ?? []) names.add(m[0]);
+  const example = [...names].slice(0, 2).map((n) => `-D ${n}=…`).join(' ');
+  return `it depends on ${conditions.slice(0, 3).join(', ')}, which this file does not decide: give ${example || '-D'} (tickmark.c.defines in the editor) or a compile_commands.json`;
 }
 
 const MAX_NAME_DEPTH = 100;
@@ -70,7 +90,7 @@ const where = (d: MacroDef | Declaration): string => `${d.uri.split(/[\\/]/).pop
 
 export function buildConstantTable(entryUri: string, text: string, options: ConstantTableOptions): ConstantTable {
   const ts = typeSystem(options.dataModel, options.charSigned);
-  const pre = preprocess(entryUri, text, { ...options, ts, maxFileBytes: options.maxFileBytes ?? 1_000_000 });
+  const pre = preprocess(entryUri, text, { ...options, ts, maxFileBytes: options.maxFileBytes ?? 1_000_000, maxHeaderBytes: options.maxHeaderBytes ?? DEFAULT_MAX_HEADER_BYTES });
   const { root } = pre;
   const memo = new Map<string, ConstantResolution>();
   const values = new Map<string, Val>();
@@ -79,7 +99,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
   const macro = (n: string): MacroDef | undefined => { const b = root.macro(n); return b?.kind === 'def' ? b.def : undefined; };
 
   const fail = (e: EvalError): ConstantResolution => ({
-    ok: false, message: e.err, code: e.code, at: e.tok ? { uri: e.tok.uri, span: { start: e.tok.start, end: e.tok.end } } : undefined,
+    ok: false, message: e.err, code: e.code, at: e.tok ? { uri: e.tok.uri, span: { start: e.tok.start, end: e.tok.end } } : undefined, runtime: e.runtime,
   });
 
   /** Expands, parses and evaluates tokens; identifiers left after expansion resolve through the table. */
@@ -100,11 +120,18 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     if (b?.kind === 'def' && b.def.params) return { err: `${name} is a function-like macro; it needs arguments`, code: Code.cSyntax, tok };
     const r = lookup(name);
     if (r.ok) return values.get(name) as Val;
-    return { err: r.message, code: r.code, named: true, tok: r.at ? { ...tok, uri: r.at.uri, start: r.at.span.start, end: r.at.span.end } : tok };
+    const runtime = r.code === Code.cRuntime ? `reads ${name}, which ${r.runtime}` : undefined;
+    return { err: r.message, code: r.code, named: true, runtime, tok: r.at ? { ...tok, uri: r.at.uri, start: r.at.span.start, end: r.at.span.end } : tok };
   };
 
   const finish = (name: string, x: EvalResult, def: MacroDef | Declaration): ConstantResolution => {
     // Undefined behaviour names the constant it sits in, once: outer constants pass the message on as it is.
+    if (isError(x) && x.code === Code.cRuntime) {
+      // Named with its line, and what makes it a run-time value: the variable or the call it reaches.
+      const own = 'body' in def || def.kind !== 'runtime';
+      if (!own) return { ok: false, code: x.code, message: x.err, runtime: x.runtime, definition: definitionOf(def) };
+      return { ok: false, code: x.code, message: `${name} (${where(def)}) is only known at run time: it ${x.runtime}`, runtime: `${x.runtime}`, definition: definitionOf(def) };
+    }
     if (isError(x)) return { ...fail(x.code === Code.cUndefined && !x.named ? { ...x, err: `${name}: ${x.err}` } : x), definition: definitionOf(def) };
     values.set(name, x);
     return { ok: true, value: toCValue(x), definition: definitionOf(def) };
@@ -112,6 +139,9 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
 
   const resolveDeclaration = (d: Declaration): EvalResult => {
     if (d.conditional) return { err: d.conditional, code: Code.cConditional };
+    if (d.kind === 'runtime') {
+      return { err: `${d.name} is an extern ${d.type?.name ?? ''} variable (${where(d)}): its value is only known at run time`.replace('  ', ' '), code: Code.cRuntime, runtime: `is an extern variable (${where(d)})` };
+    }
     if (d.kind === 'const') {
       const x = evalTokens(d.init as SourceToken[]);
       if (isError(x) || !d.type) return x;
@@ -136,7 +166,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
   const compute = (name: string): ConstantResolution => {
     const mb = root.macro(name);
     if (mb?.kind === 'conflict') {
-      return { ok: false, code: Code.cConditional, message: `${name} is defined differently under #if branches (${mb.defs.map(where).join(', ')}); the value depends on the build configuration` };
+      return { ok: false, code: Code.cConditional, message: `${name} is defined differently under #if branches (${mb.defs.map(where).join(', ')}); ${undecidedNote(mb.conditions)}` };
     }
     if (mb?.kind === 'def') {
       const m = mb.def;
@@ -147,11 +177,12 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     }
     const db = root.decl(name);
     if (db?.kind === 'conflict') {
-      return { ok: false, code: Code.cConditional, message: `${name} is declared differently under #if branches (${db.defs.map(where).join(', ')}); the value depends on the build configuration` };
+      return { ok: false, code: Code.cConditional, message: `${name} is declared differently under #if branches (${db.defs.map(where).join(', ')}); ${undecidedNote(db.conditions)}` };
     }
     if (db?.kind === 'def') return finish(name, resolveDeclaration(db.def), db.def);
     const undefNote = mb?.kind === 'undef' ? ' (it is #undef-ed)' : '';
-    return { ok: false, code: Code.cUnknown, message: `${name} is not defined in this file or the headers it includes${undefNote}` };
+    const missing = pre.missing.length ? ` (headers not found: ${[...new Set(pre.missing)].slice(0, 4).join(', ')})` : '';
+    return { ok: false, code: Code.cUnknown, message: `${name} is not defined in this file or the headers it includes${undefNote}${missing}` };
   };
 
   const lookup = (name: string): ConstantResolution => {

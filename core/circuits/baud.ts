@@ -37,7 +37,7 @@ export const baud: CircuitModel = {
     quantity('clock', 'UART clock', 'Hz', 'Clock into the baud-rate generator.'),
     quantity('baud', 'wanted baud rate', 'baud', 'Baud rate the link expects.'),
     quantity('oversampling', 'oversampling', '', 'Clocks per bit in the receiver (16 normal, 8 double speed).', { default: 16, defaultText: '16', integer: true, min: 1 }),
-    quantity('divisor', 'divisor', '', 'Division ratio of the baud-rate generator; may be fractional.', { optional: true }),
+    quantity('divisor', 'divisor', '', 'Division ratio of the baud-rate generator; may be fractional.', { optional: true, register: true }),
   ],
   results: [
     { key: 'baud', label: 'actual baud rate', dim: 'baud' },

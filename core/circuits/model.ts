@@ -18,11 +18,21 @@ export interface QuantityParam {
   max?: number;
   /** Whether `?` may be solved for this key (R, C, and timer registers). */
   solvable?: boolean;
-  /** Integer-valued (registers, stages, oversampling). */
+  /** Integer-valued (registers, stages, oversampling): read as a C constant expression, see isRegisterKey. */
   integer?: boolean;
+  /** A register value that may be fractional (a baud divisor, a PLL multiplier): read as C as well. */
+  register?: boolean;
   /** May be left out without a default: the model then runs without it (timer `compare`, baud `divisor`). */
   optional?: boolean;
   description: string;
+}
+
+/**
+ * The one rule for which keys are registers (DESIGN.md, "Values"): plain-number keys marked `integer` or
+ * `register` take C constant expressions in the block's data model; keys with a unit keep the value language.
+ */
+export function isRegisterKey(spec: QuantityParam): boolean {
+  return spec.dim === '' && (spec.integer === true || spec.register === true);
 }
 
 /** A word-valued parameter (`mode: up-down`, `diode: yes`). */

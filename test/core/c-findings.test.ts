@@ -70,16 +70,21 @@ describe('C constant findings', () => {
     assert.equal(codeOf(t.evaluate('(unsigned)-1.5')), Code.cUndefined);
   });
 
-  it('a file or header larger than maxFileBytes is a finding and is not read', () => {
+  it('a file larger than maxFileBytes or a header larger than maxHeaderBytes is a warning and is not read', () => {
     const big = '#define A 1\n'.repeat(10);
     const files: Record<string, string> = { '/ws/big.h': big, '/ws/main.c': '#include "big.h"\n#define B 2\n' };
-    const options = { dataModel: 'ilp32' as const, includeDirs: [], workspaceRoots: ['/ws'], read: (u: string) => files[u], maxFileBytes: 60 };
+    const options = { dataModel: 'ilp32' as const, includeDirs: [], workspaceRoots: ['/ws'], read: (u: string) => files[u], maxFileBytes: 60, maxHeaderBytes: 60 };
     const t = buildConstantTable('/ws/main.c', files['/ws/main.c'], options);
     assert.equal(t.findings[0]?.code, Code.fileTooLarge);
+    assert.equal(t.findings[0]?.severity, 'warning');
+    assert.equal(files['/ws/main.c'].slice(t.findings[0].span.start, t.findings[0].span.end), '"big.h"', 'at its #include');
     assert.equal(valueOf(t, 'B'), 2n);
     assert.equal(String(valueOf(t, 'A')).startsWith(Code.cUnknown), true);
     const whole = buildConstantTable('/ws/big.h', big, options);
     assert.equal(whole.findings[0]?.code, Code.fileTooLarge);
+    // The header limit is its own: a 120-byte header reads under a 60-byte file limit.
+    const headerRoom = buildConstantTable('/ws/main.c', files['/ws/main.c'], { ...options, maxHeaderBytes: 1000 });
+    assert.equal(valueOf(headerRoom, 'A'), 1n);
   });
 
   it('a malformed #define is positioned at its directive', () => {

@@ -64,13 +64,16 @@ describe('C #include "…"', () => {
     assert.ok(l.findings.some((f) => f.code === Code.cInclude && /includes itself/.test(f.message)));
   });
 
-  it('ignores <system> headers and reports a missing quoted header as info', () => {
-    const { table, reads } = workspace({ '/ws/main.c': '#include <stdint.h>\n#include "missing.h"\n#define OK 1\n' });
+  it('serves <stdint.h> itself and reports a missing quoted header as a warning at its #include', () => {
+    const text = '#include <stdint.h>\n#include "missing.h"\n#define OK 1\n';
+    const { table, reads } = workspace({ '/ws/main.c': text });
     const t = table('/ws/main.c');
     assert.ok(!reads.some((r) => r.endsWith('stdint.h')));
     const missing = t.findings.filter((f) => f.code === Code.cInclude);
     assert.equal(missing.length, 1);
-    assert.equal(missing[0].severity, 'info');
+    assert.equal(missing[0].severity, 'warning');
+    assert.equal(text.slice(missing[0].span.start, missing[0].span.end), '"missing.h"');
     assert.equal(valueOf(t, 'OK'), 1n);
+    assert.match(String(valueOf(t, 'NOT_HERE')), /headers not found: "missing.h"/);
   });
 });
