@@ -10,6 +10,7 @@ export { analyzeBlock } from './block';
 export * from './context';
 export { AnalysisCache, type CacheStats } from './cache';
 export { analyzeWorkspace, WorkspaceAnalyzer } from './workspace';
+export { FirmwareCache } from './firmware';
 
 /** One document's analyser, kept while the document is open: an edit re-analyses only the blocks it touched. */
 export class Analyzer {

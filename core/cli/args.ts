@@ -2,6 +2,8 @@
 export interface ParsedArgs {
   positional: string[];
   flags: Map<string, string[]>;
+  /** Every flag with its value in command-line order (`-D X -U X` differs from `-U X -D X`). */
+  ordered: Array<[string, string]>;
   problems: string[];
 }
 
@@ -11,7 +13,7 @@ export interface FlagSpec {
 }
 
 export function parseArgs(argv: string[], specs: Record<string, FlagSpec>): ParsedArgs {
-  const parsed: ParsedArgs = { positional: [], flags: new Map(), problems: [] };
+  const parsed: ParsedArgs = { positional: [], flags: new Map(), ordered: [], problems: [] };
   for (let i = 0; i < argv.length; i++) {
     const arg = argv[i];
     if (arg === '--') {
@@ -22,7 +24,9 @@ export function parseArgs(argv: string[], specs: Record<string, FlagSpec>): Pars
       parsed.positional.push(arg);
       continue;
     }
-    const [name, inline] = arg.startsWith('--') ? splitInline(arg.slice(2)) : [arg.slice(1), undefined];
+    // A one-letter flag takes its value attached as compilers do (`-DF_CPU=16000000UL`, `-Iinclude`).
+    const attached = !arg.startsWith('--') && arg.length > 2 && specs[arg[1]]?.value;
+    const [name, inline] = arg.startsWith('--') ? splitInline(arg.slice(2)) : attached ? [arg[1], arg.slice(2)] : [arg.slice(1), undefined];
     const spec = specs[name];
     if (!spec) {
       parsed.problems.push(`unknown option ${arg}`);
@@ -40,6 +44,7 @@ export function parseArgs(argv: string[], specs: Record<string, FlagSpec>): Pars
     const list = parsed.flags.get(name) ?? [];
     list.push(value);
     parsed.flags.set(name, list);
+    parsed.ordered.push([name, value]);
   }
   return parsed;
 }

@@ -12,7 +12,8 @@ import { githubReport } from './github';
 import { version } from '../project';
 import { waveformFor, defaultCycles, maxCycles } from '../present/waveform';
 import { renderWaveformSvg } from '../wave/svg';
-import type { DataModelName } from '../analyze';
+import type { AnalyzeOptions, DataModelName } from '../analyze';
+import { parseMacroFlag, type MacroFlag } from '../c';
 
 export { version };
 
@@ -54,6 +55,12 @@ or - for standard input.
                     (repeatable; a GLOB without / matches names at any depth: --exclude vendor)
   --stdin-name PATH the path standard input stands for: its type and where relative includes
                     and firmware: files are found (default stdin.md, a note in the working folder)
+  -D NAME[=VALUE]   define a macro for firmware files, as the compiler's -D (repeatable)
+  -U NAME           undefine a macro, as the compiler's -U (repeatable)
+  -I DIR            include folder for "…" and <…> includes (repeatable; same as --include)
+  --compile-commands FILE
+                    the build's compile_commands.json (default: found at each folder's root or build/)
+  --max-header-kb N headers above N KB are skipped, with a warning at their #include (default 8192)
 
 Colour: on a terminal, unless NO_COLOR is set or TERM=dumb; FORCE_COLOR=1 forces it, FORCE_COLOR=0 stops it.
 
@@ -79,6 +86,11 @@ const analysisFlags = {
   'data-model': { value: true },
   series: { value: true },
   'max-size-kb': { value: true },
+  D: { value: true },
+  U: { value: true },
+  I: { value: true },
+  'compile-commands': { value: true },
+  'max-header-kb': { value: true },
 } as const;
 
 /** Flags every command takes. */
@@ -110,8 +122,10 @@ function optionsFrom(args: ParsedArgs, io: Io, paths: string[]): ReturnType<type
   if (!Number.isFinite(percent) || percent < 0 || percent > 100) return `--tolerance takes a percentage from 0 to 100, not ${tolerance}`;
   const dataModel = (last(args, 'data-model') ?? 'ilp32') as DataModelName;
   if (!dataModels.includes(dataModel)) return `--data-model takes ${dataModels.join(', ')}, not ${dataModel}`;
-  const includeDirs = (args.flags.get('include') ?? []).map((d) => path.resolve(io.cwd, d));
+  const includeDirs = args.ordered.filter(([f]) => f === 'include' || f === 'I').map(([, d]) => path.resolve(io.cwd, d));
   for (const dir of includeDirs) if (!isFolder(dir)) return `--include ${dir}: no such folder`;
+  const build = buildFlags(args, io);
+  if (typeof build === 'string') return build;
   const maxSizeText = last(args, 'max-size-kb');
   const maxSizeKb = maxSizeText === undefined ? 1024 : Number(maxSizeText);
   if (!Number.isFinite(maxSizeKb) || maxSizeKb <= 0) return `--max-size-kb takes a size in KB greater than 0, not ${maxSizeText}`;
@@ -124,7 +138,25 @@ function optionsFrom(args: ParsedArgs, io: Io, paths: string[]): ReturnType<type
     defaultSeries: series.toUpperCase() === 'NONE' ? 'none' : series.toUpperCase(),
     workspaceRoots: rootsFor(paths, includeDirs, io.cwd),
     maxFileBytes: Math.round(maxSizeKb * 1024),
+    ...build,
   });
+}
+
+/** -D / -U in order, --compile-commands and --max-header-kb: how the build configures its firmware. */
+function buildFlags(args: ParsedArgs, io: Io): Partial<AnalyzeOptions> | string {
+  const macros: MacroFlag[] = [];
+  for (const [flag, value] of args.ordered) {
+    if (flag !== 'D' && flag !== 'U') continue;
+    const m = parseMacroFlag(value, flag === 'D' ? 'define' : 'undef');
+    if (typeof m === 'string') return `-${flag}: ${m}`;
+    macros.push(m);
+  }
+  const compileCommands = (args.flags.get('compile-commands') ?? []).map((f) => path.resolve(io.cwd, f));
+  for (const file of compileCommands) if (!fs.existsSync(file)) return `--compile-commands ${file}: no such file`;
+  const headerText = last(args, 'max-header-kb');
+  const headerKb = headerText === undefined ? 8192 : Number(headerText);
+  if (!Number.isFinite(headerKb) || headerKb <= 0) return `--max-header-kb takes a size in KB greater than 0, not ${headerText}`;
+  return { macros, macrosOrigin: '-D/-U on the command line', compileCommands, maxHeaderBytes: Math.round(headerKb * 1024) };
 }
 
 function isFolder(dir: string): boolean {

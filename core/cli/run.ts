@@ -1,7 +1,8 @@
 // A check over files: each read once, analysed with the same engine the editor uses.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
-import { analyzeWorkspace, defaultAnalyzeOptions, tooLargeAnalysis, type AnalyzeOptions } from '../analyze';
+import { analyzeWorkspace, defaultAnalyzeOptions, FirmwareCache, tooLargeAnalysis, type AnalyzeOptions } from '../analyze';
+import { DEFAULT_MAX_HEADER_BYTES } from '../c';
 import type { DocumentAnalysis, TextDocumentLike } from '../types';
 import { lineStarts } from '../scan/lines';
 import { languageOf, readText, realPath, sizeOf } from './files';
@@ -16,8 +17,10 @@ export interface CheckedFile {
 
 export function cliOptions(overrides: Partial<AnalyzeOptions>): AnalyzeOptions {
   const base: AnalyzeOptions = { ...defaultAnalyzeOptions, read: () => undefined, ...overrides };
-  const maxFileBytes = base.maxFileBytes;
-  return { ...base, read: overrides.read ?? ((file) => readText(file, maxFileBytes)), realpath: overrides.realpath ?? realPath };
+  // Headers have their own limit; the preprocessor says which one a file broke, at its #include.
+  const readLimit = Math.max(base.maxFileBytes, base.maxHeaderBytes ?? DEFAULT_MAX_HEADER_BYTES);
+  // One cache for the run: a header shared by many files is read and preprocessed once.
+  return { ...base, read: overrides.read ?? ((file) => readText(file, readLimit)), realpath: overrides.realpath ?? realPath, firmware: overrides.firmware ?? new FirmwareCache() };
 }
 
 /**
