@@ -174,7 +174,7 @@ describe('compile_commands.json and -D in the analysis', () => {
     assert.equal(within.code, 0, 'a 70 KB header reads under an 8 KB file limit');
     const skipped = run(['check', '--max-header-kb', '8', 'fw/tick.c'], dir);
     assert.equal(skipped.code, 1);
-    assert.match(skipped.out, /^fw\/tick\.c:1: warning: "device\.h" is larger than the header size limit of 8 KB/m);
+    assert.match(skipped.out, /^fw\/tick\.c:1:10: warning: "device\.h" is larger than the header size limit of 8 KB/m);
   });
 });
 
