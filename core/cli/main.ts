@@ -36,7 +36,8 @@ commands:
 run \`tickmark <command> --help\` for its options; \`tickmark --version\` prints the version
 `;
 
-const checkHelp = `usage: tickmark check [--format F | --json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] [--series S] [--max-size-kb N] [--exclude GLOB]... PATH...
+const checkHelp = `usage: tickmark check [--format F | --json | --sarif] [--tolerance P] [--include DIR]... [--data-model M] [--series S] [--max-size-kb N] [--exclude GLOB]...
+       [-D NAME[=VALUE]]... [-U NAME]... [-I DIR]... [--compile-commands FILE] [--max-header-kb N] PATH...
 
 Scans Markdown notes and C/C++ files for timing blocks, computes each, and prints
 \`file:line:col: severity: message\` per finding with a one-line summary per block.
@@ -68,6 +69,7 @@ exit status: 0 nothing wrong, 1 a block has a warning or error, 2 usage error or
 `;
 
 const waveHelp = `usage: tickmark wave PATH --block NAME [--cycles N] [--out FILE.svg] [--include DIR]... [--data-model M] [--series S] [--tolerance P] [--max-size-kb N]
+       [-D NAME[=VALUE]]... [-U NAME]... [-I DIR]... [--compile-commands FILE] [--max-header-kb N]
 
 Writes the waveform of block NAME in file PATH as SVG: the timing node's voltage and the output
 from power-up (a discharged capacitor) over N cycles (default ${defaultCycles}, at most ${maxCycles}), thresholds labelled.
