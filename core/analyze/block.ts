@@ -16,6 +16,7 @@ import { solveUnknowns } from './unknowns';
 import { checkClaims } from './mismatch';
 import { seriesFindings } from './series-check';
 import type { ReferenceSource } from './references';
+import { blockKey } from '../block-keys';
 
 export interface BlockContext {
   uri: string;
@@ -30,7 +31,7 @@ export interface BlockContext {
   computed?: (plan: Plan, overrides: Readonly<Record<string, number>>, values: Readonly<Record<string, number>>) => void;
 }
 
-const dataModels: readonly DataModelName[] = ['ilp32', 'lp64', 'ip16'];
+const dataModels = (blockKey('data-model')?.words ?? []).map((w) => w.word as DataModelName);
 
 export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysis {
   const findings: Finding[] = [...raw.findings];
@@ -122,8 +123,8 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   const keys = tolerancedKeys(plan);
   if (keys.length) {
     const spread = worstCase(plan, keys, overrides);
-    const samples = integerMeta(entries.get('samples'), findings, 1, 1_000_000);
-    if (samples) monteCarlo(plan, keys, samples, integerMeta(entries.get('seed'), findings, 0, 2 ** 32 - 1) ?? 1, spread, overrides);
+    const samples = integerMeta(entries.get('samples'), findings);
+    if (samples) monteCarlo(plan, keys, samples, integerMeta(entries.get('seed'), findings) ?? 1, spread, overrides);
     analysis.spread = spread;
   }
 
@@ -223,8 +224,10 @@ function unsignedSuffixHints(raw: RawBlock, model: CircuitModel): Finding[] {
   return hints;
 }
 
-function integerMeta(entry: { valueText: string; valueSpan: { start: number; end: number }; key: string } | undefined, findings: Finding[], min: number, max: number): number | undefined {
+/** An integer block key (`samples`, `seed`) within the limits of its row in core/block-keys.ts. */
+function integerMeta(entry: { valueText: string; valueSpan: { start: number; end: number }; key: string } | undefined, findings: Finding[]): number | undefined {
   if (!entry) return undefined;
+  const { min = 0, max = Number.MAX_SAFE_INTEGER } = blockKey(entry.key) ?? {};
   const parsed = parseValue(entry.valueText, entry.valueSpan.start);
   const value = parsed.expr && !parsed.findings.length ? compileValue(parsed.expr)({}) : NaN;
   if (!Number.isInteger(value) || value < min || value > max) {

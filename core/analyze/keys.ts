@@ -1,12 +1,12 @@
 // Keys a block may carry besides its circuit's parameters, and the helpers to suggest a near miss.
 
-/** Block keys that steer the analysis rather than describe the circuit. */
-export const metaKeys = ['circuit', 'expect', 'target', 'target2', 'target3', 'series', 'samples', 'seed', 'firmware', 'data-model', 'safety'] as const;
+import { blockKey, blockKeys } from '../block-keys';
 
-export type MetaKey = (typeof metaKeys)[number];
+/** Block keys that steer the analysis rather than describe the circuit (core/block-keys.ts is their table). */
+export const metaKeys: readonly string[] = blockKeys.map((spec) => spec.key);
 
-export function isMetaKey(key: string): key is MetaKey {
-  return (metaKeys as readonly string[]).includes(key);
+export function isMetaKey(key: string): boolean {
+  return blockKey(key) !== undefined;
 }
 
 const firmwareExtensions = ['.h', '.c', '.hh', '.hpp', '.cc', '.cpp', '.cxx', '.inc'];

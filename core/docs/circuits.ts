@@ -1,6 +1,7 @@
 // The README's circuit list, written from the parameter tables so the docs cannot drift from the code.
 import { circuits } from '../circuits/registry';
 import type { ParamSpec } from '../circuits/model';
+import { blockKeysMarkdown } from '../block-keys';
 
 function keyText(spec: ParamSpec): string {
   if (spec.kind === 'choice') return `\`${spec.key}\` (${spec.options.join(' / ')}, default ${spec.default})`;
@@ -24,10 +25,17 @@ export function circuitsMarkdown(): string {
 export const circuitsStart = '<!-- circuits: written by `npm run docs` from core/circuits; do not edit by hand -->';
 export const circuitsEnd = '<!-- end of circuits -->';
 
-/** The README with its circuit section replaced by the current one. */
+export const blockKeysStart = '<!-- block keys: written by `npm run docs` from core/block-keys.ts; do not edit by hand -->';
+export const blockKeysEnd = '<!-- end of block keys -->';
+
+function replaceBetween(text: string, startMark: string, endMark: string, body: string): string {
+  const start = text.indexOf(startMark);
+  const end = text.indexOf(endMark);
+  if (start < 0 || end < start) return text;
+  return text.slice(0, start + startMark.length) + '\n' + body + '\n' + text.slice(end);
+}
+
+/** The README with its circuit and block-key sections replaced by the current ones. */
 export function withCircuits(readme: string): string {
-  const start = readme.indexOf(circuitsStart);
-  const end = readme.indexOf(circuitsEnd);
-  if (start < 0 || end < start) return readme;
-  return readme.slice(0, start + circuitsStart.length) + '\n' + circuitsMarkdown() + '\n' + readme.slice(end);
+  return replaceBetween(replaceBetween(readme, circuitsStart, circuitsEnd, circuitsMarkdown()), blockKeysStart, blockKeysEnd, blockKeysMarkdown());
 }
