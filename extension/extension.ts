@@ -14,6 +14,7 @@ import { registerInternalCommands, type ActivationMarks } from './internalComman
 import { createLogger } from './logger';
 import { timingPreviewPlugin, type MarkdownIt } from './preview';
 import { registerWaveform } from './waveform';
+import { registerTasks } from './tasks';
 import type { PanelEvents } from './panel/events';
 
 /** What activate() hands to VS Code and other extensions: the preview plugin, and what the panel shows. */
@@ -45,6 +46,7 @@ export function activate(context: vscode.ExtensionContext): TickmarkApi {
     registerInternalCommands(store, () => marks),
     vscode.workspace.onDidChangeConfiguration((e) => e.affectsConfiguration('tickmark') && store.invalidate()),
   );
+  context.subscriptions.push(registerTasks(context.extensionPath));
   logger.info(`Tickmark ${String(context.extension.packageJSON.version)} active`);
   marks = { moduleLoadStart, moduleLoadEnd, activateStart, activateEnd: performance.now(), engineLoadedAtActivation: engineLoadState().loaded };
   return { extendMarkdownIt: (md) => timingPreviewPlugin(md, store), waveformPanel: waveform.events };

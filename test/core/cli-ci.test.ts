@@ -233,3 +233,26 @@ describe('tickmark colour', () => {
     assert.doesNotMatch(dumb.stdout, /\x1b\[/);
   });
 });
+
+describe('VS Code problem matcher $tickmark', () => {
+  it('reads every finding line of the human report, as --json places it', () => {
+    const pkg = JSON.parse(fs.readFileSync(path.join(__dirname, '../../package.json'), 'utf8'));
+    const matcher = pkg.contributes.problemMatchers.find((m: { name: string }) => m.name === 'tickmark');
+    const pattern = new RegExp(matcher.pattern.regexp);
+    const dir = workspace(files);
+    const human = run(['check', '.'], dir).out.split('\n');
+    const json = JSON.parse(run(['check', '--json', '.'], dir).out);
+    const expected: string[] = [];
+    for (const file of json.files) {
+      for (const d of [...file.diagnostics, ...file.blocks.flatMap((b: { diagnostics: unknown[] }) => b.diagnostics)]) {
+        expected.push(`${d.file ?? file.path}:${d.line}:${d.column}:${d.severity === 'info' ? 'note' : d.severity}`);
+      }
+    }
+    const matched = human.map((line) => pattern.exec(line)).filter((m): m is RegExpExecArray => m !== null);
+    const p = matcher.pattern;
+    assert.deepEqual(matched.map((m) => `${m[p.file]}:${m[p.line]}:${m[p.column]}:${m[p.severity]}`).sort(), expected.sort());
+    assert.ok(expected.length >= 3);
+    // Block summary lines are not findings.
+    assert.ok(human.some((line) => /\(timer\)/.test(line) && !pattern.test(line)));
+  });
+});

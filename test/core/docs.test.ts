@@ -37,3 +37,26 @@ describe('docs/blocks.md', () => {
     }
   });
 });
+
+describe('MARKETPLACE.md, the page of the .vsix', () => {
+  const root = path.join(__dirname, '../..');
+  const pkg = JSON.parse(fs.readFileSync(path.join(root, 'package.json'), 'utf8'));
+  const page = fs.readFileSync(path.join(root, 'MARKETPLACE.md'), 'utf8');
+
+  it('shows images that ship in the package and that vsce can turn into repository links', () => {
+    // vsce rewrites a relative image path to <repository>/raw/HEAD/<path>; without `repository` it refuses them.
+    assert.match(pkg.repository.url, /^https:\/\/github\.com\/[^/]+\/[^/]+\.git$/);
+    const images = [...page.matchAll(/!\[[^\]]*\]\(([^)]+)\)/g)].map((m) => m[1]);
+    assert.ok(images.length >= 4);
+    for (const image of images) {
+      assert.ok(!/^[a-z]+:/.test(image), `${image} is relative, so it is published with the repository`);
+      assert.ok(fs.existsSync(path.join(root, image)), `${image} exists`);
+      assert.ok(pkg.files.some((pattern: string) => pattern === image || (pattern.endsWith('/*.png') && image.startsWith(pattern.slice(0, -'*.png'.length)))), `${image} is in package.json files`);
+    }
+  });
+
+  it('lists every command and setting the extension contributes', () => {
+    for (const command of pkg.contributes.commands) assert.ok(page.includes(command.title), command.title);
+    for (const setting of Object.keys(pkg.contributes.configuration.properties)) assert.ok(page.includes(`\`${setting}\``), setting);
+  });
+});
