@@ -84,6 +84,46 @@ describe('block references across a note and a C file', () => {
   });
 });
 
+describe('crystal → PLL → divider → UART across a note and a C file', () => {
+  const files = {
+    'notes/clocks.md': note(
+      ['xtal', 'circuit: clock', 'frequency: 8 MHz ±25 ppm'],
+      ['sysclk', 'circuit: pll', 'ref: @xtal', 'prediv: 1', 'mult: 6', 'postdiv: 2'],
+      ['apb', 'circuit: divider', 'clock: @sysclk.frequency', 'divide: 2'],
+    ),
+    'src/uart.c': '#define LINK_BAUD 9600u\n' + cBlock('link', 'circuit: baud', 'clock: @apb', 'baud: LINK_BAUD', 'oversampling: 16'),
+  };
+
+  it('gives the rate, the error and an error band that holds the crystal\'s ppm (derived by hand)', () => {
+    const analyses = workspace(files);
+    const link = blockNamed(analyses, 'link');
+    assert.deepEqual(messages(link), []);
+    // PLL (pfd = ref / prediv, vco = pfd · mult, out = vco / postdiv): 8 MHz · 6 / 2 = 24 MHz; the divider halves
+    // it: 12 MHz. UART: divisor = round(12e6 / (16 · 9600)) = round(78.125) = 78 (nearest whole divisor);
+    // rate = 12e6 / (16 · 78) = 9615.384615… baud; error = 9615.384615… / 9600 − 1 = +0.160256… %.
+    const rate = 12e6 / (16 * 78);
+    assert.equal(link.params.clock, 12e6);
+    assert.ok(Math.abs(link.values.baud - 9615.384615384615) < 1e-9);
+    assert.ok(Math.abs(link.values.error - 0.0016025641025641) < 1e-12);
+    // ±25 ppm at the crystal scales every clock below it by (1 ± 25e-6), and the divisor stays 78
+    // (78.125 · (1 ± 25e-6) still rounds to 78): rate 9615.144231 … 9615.625000 baud, error +0.157753 … +0.162760 %.
+    const band = link.spread!.baud;
+    assert.ok(Math.abs(band.min - rate * (1 - 25e-6)) < 1e-6 && Math.abs(band.min - 9615.144230769) < 1e-6, `min ${band.min}`);
+    assert.ok(Math.abs(band.max - 9615.625) < 1e-6, `max ${band.max}`);
+    const errorBand = link.spread!.error;
+    assert.ok(Math.abs(errorBand.min - (9615.144230769231 / 9600 - 1)) < 1e-10, `error min ${errorBand.min}`);
+    assert.ok(Math.abs(errorBand.max - (9615.625 / 9600 - 1)) < 1e-10, `error max ${errorBand.max}`);
+    assert.deepEqual(Object.keys(band.shares ?? {}), ['@xtal.frequency']);
+    assert.deepEqual(link.references?.map((r) => [r.name, r.result, r.value, r.line]), [['apb', 'frequency', 12e6, 16]]);
+  });
+
+  it('Monte Carlo in the dependant draws the crystal: its percentiles stay inside the worst case', () => {
+    const analyses = workspace({ ...files, 'src/uart.c': files['src/uart.c'].replace(' * oversampling: 16', ' * oversampling: 16\n * samples: 2000') });
+    const band = blockNamed(analyses, 'link').spread!.baud;
+    assert.ok(band.p1! > band.min && band.p99! < band.max && band.p1! < band.p99!, JSON.stringify(band));
+  });
+});
+
 describe('block reference problems', () => {
   it('a cycle is an error at each reference in it, on the line of the key, and the blocks get no results', () => {
     const text = note(
