@@ -37,6 +37,8 @@ export const Code = {
   clockRange: 'clock-range',
   clockTolerance: 'clock-tolerance',
   refreshTiming: 'refresh-timing',
+  busLimit: 'bus-limit',
+  sampleSettling: 'sample-settling',
   // claims and solving
   expectMismatch: 'expect-mismatch',
   expectUnknownMeasure: 'expect-unknown-measure',
@@ -251,6 +253,18 @@ const rows: Record<CodeId, Row> = {
     short: 'A watchdog refresh comes too late or too early.',
     full: 'The firmware\'s refresh interval reaches the shortest timeout over the clock\'s tolerance, or comes before a window watchdog\'s window opens at its latest; either way the watchdog resets a healthy system.',
     help: 'Refresh more often, lengthen the timeout (prescaler, reload), or move the window; verify on the hardware.',
+  },
+  'bus-limit': {
+    severity: 'warning',
+    short: 'An I²C line is beyond its mode\'s limits.',
+    full: 'The rise time exceeds the mode\'s limit, the bus capacitance its maximum, or the pull-up is too small for a device to pull the line down to vol (I²C-bus specification); the bus may not run at that mode\'s speed.',
+    help: 'Choose a pull-up within the bounds the hover gives (`pullup: ?` picks one), shorten the bus, or use a slower mode.',
+  },
+  'sample-settling': {
+    severity: 'warning',
+    short: 'An ADC input does not settle within its sampling time.',
+    full: 'The sampling capacitor needs longer than the sampling time to settle to ½ LSB through the source and switch resistance; conversions read low or depend on the previous channel.',
+    help: 'Lengthen the sampling time, lower the source resistance (a buffer or a smaller divider), or add a capacitor at the pin.',
   },
   'rate-error': {
     severity: 'warning',

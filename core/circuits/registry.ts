@@ -14,6 +14,8 @@ import { clock } from './clock';
 import { divider } from './divider';
 import { pll } from './pll';
 import { canBit } from './can-bit';
+import { i2cRise } from './i2c-rise';
+import { adcSample } from './adc-sample';
 import { watchdog } from './watchdog';
 
 export const circuits: readonly CircuitModel[] = [
@@ -31,6 +33,8 @@ export const circuits: readonly CircuitModel[] = [
   divider,
   pll,
   canBit,
+  i2cRise,
+  adcSample,
   watchdog,
 ];
 

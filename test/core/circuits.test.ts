@@ -20,6 +20,8 @@ const contract: Record<string, { keys: string[]; results: string[] }> = {
   divider: { keys: ['clock', 'divide'], results: ['frequency', 'period'] },
   pll: { keys: ['ref', 'prediv', 'mult', 'postdiv', 'postdiv2', 'postdiv3', 'pfd-range', 'vco-range'], results: ['pfd', 'vco', 'frequency', 'frequency2', 'frequency3'] },
   'can-bit': { keys: ['clock', 'prescaler', 'prop-seg', 'phase-seg1', 'phase-seg2', 'sjw', 'sample-point'], results: ['bitrate', 'sample-point', 'tq', 'tolerance'] },
+  'i2c-rise': { keys: ['supply', 'pullup', 'bus-c', 'mode', 'vol', 'iol'], results: ['rise', 'pullup-min', 'pullup-max'] },
+  'adc-sample': { keys: ['bits', 'r-source', 'r-switch', 'c-sample', 'sample-time'], results: ['settle', 'margin', 'r-source-max'] },
   watchdog: { keys: ['clock', 'prescaler', 'reload', 'refresh', 'window'], results: ['timeout', 'margin'] },
 };
 
@@ -116,6 +118,8 @@ describe('circuit registry', () => {
     divider: { values: { clock: 48e6, divide: 3 } },
     pll: { values: { ref: 12e6, prediv: 3, mult: 80, postdiv: 4, postdiv2: 5 } },
     'can-bit': { values: { clock: 24e6, prescaler: 3, 'prop-seg': 5, 'phase-seg1': 8, 'phase-seg2': 2 } },
+    'i2c-rise': { values: { supply: 3.3, pullup: 2.2e3, 'bus-c': 100e-12 } },
+    'adc-sample': { values: { bits: 10, 'r-source': 4.7e3, 'r-switch': 2e3, 'c-sample': 5e-12, 'sample-time': 1.5e-6 } },
     watchdog: { values: { clock: 40e3, prescaler: 16, reload: 2499, refresh: 0.2, window: 1000 } },
   };
 
