@@ -52,7 +52,7 @@ export const i2cRise: CircuitModel = {
     capacitor('bus-c', 'bus capacitance', 'Total capacitance of the line (wiring and pins).'),
     { kind: 'choice', key: 'mode', label: 'bus mode', options: ['standard', 'fast', 'fast-plus'], default: 'fast', description: 'Speed mode of the I²C-bus specification: its rise-time and bus-capacitance limits.' },
     voltage('vol', 'low-level output voltage', 'Largest low level a device must pull the line to.', { default: 0.4, defaultText: '0.4 V', min: 0 }),
-    quantity('iol', 'low-level output current', 'A', 'Current a device sinks at vol.', { optional: true, defaultText: '3 mA (20 mA in fast-plus)', min: Number.MIN_VALUE }),
+    quantity('iol', 'low-level output current', 'A', 'Current a device sinks at vol.', { optional: true, defaultText: '3 mA; 20 mA in fast-plus', min: Number.MIN_VALUE }),
   ],
   results: [
     { key: 'rise', label: 'rise time (30 % → 70 %)', dim: 's' },
