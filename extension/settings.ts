@@ -1,5 +1,6 @@
 // The tickmark.* settings as the features read them; names and defaults match package.json.
 import * as vscode from 'vscode';
+import { parseFirmwareSettings, type FirmwareSettings } from '../core/analyze/settings';
 
 export type DataModelSetting = 'ilp32' | 'lp64' | 'ip16';
 
@@ -10,6 +11,8 @@ export interface TickmarkSettings {
   includeFolders: string[];
   lensEnabled: boolean;
   maxSizeKB: number;
+  /** tickmark.c.defines, compileCommands, maxHeaderSizeKB and workspace trust, read as the language server reads them. */
+  firmware: FirmwareSettings;
 }
 
 const dataModels: readonly DataModelSetting[] = ['ilp32', 'lp64', 'ip16'];
@@ -27,6 +30,7 @@ export function readSettings(scope?: vscode.Uri): TickmarkSettings {
     // The editor's own switch turns every code lens off; ours only Tickmark's.
     lensEnabled: config.get<boolean>('lens.enabled', true) && vscode.workspace.getConfiguration('editor', scope).get<boolean>('codeLens', true),
     maxSizeKB: positiveOr(config.get<number>('files.maxSizeKB'), 1024),
+    firmware: parseFirmwareSettings((key) => (key === 'workspaceTrusted' ? vscode.workspace.isTrusted : config.get(key))),
   };
 }
 

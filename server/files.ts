@@ -74,6 +74,19 @@ export class FileReader {
     return known === undefined || known.size > maxBytes ? undefined : known.text;
   }
 
+  /** An open buffer's version, else the size and time on disk: what the core's header cache keys on. */
+  versionOf(corePath: string): string | undefined {
+    const open = this.openDocument(corePath);
+    if (open) return `open:${open.version}`;
+    if (isUriString(corePath)) return undefined;
+    try {
+      const stat = fs.statSync(corePath);
+      return `${stat.size}:${stat.mtimeMs}`;
+    } catch {
+      return undefined;
+    }
+  }
+
   /** Offsets to positions in a file the analysis read: the open buffer, else the text last read from disk. */
   mapperOf(corePath: string): TextDocument | undefined {
     const open = this.openDocument(corePath);

@@ -2,6 +2,8 @@
 // workspace/configuration answers) or dotted keys (`{ "c.dataModel": … }`, as people write initializationOptions).
 // Names and defaults match package.json; a value of the wrong type or out of range falls back to the default.
 
+import { defaultFirmwareSettings, parseFirmwareSettings, type FirmwareSettings } from '../core/analyze/settings';
+
 export type DataModelSetting = 'ilp32' | 'lp64' | 'ip16';
 
 export interface ServerSettings {
@@ -11,6 +13,8 @@ export interface ServerSettings {
   includeFolders: string[];
   lensEnabled: boolean;
   maxSizeKB: number;
+  /** tickmark.c.defines, compileCommands, maxHeaderSizeKB and `workspaceTrusted`, read as the extension reads them. */
+  firmware: FirmwareSettings;
 }
 
 export const defaultSettings: ServerSettings = {
@@ -20,6 +24,7 @@ export const defaultSettings: ServerSettings = {
   includeFolders: [],
   lensEnabled: true,
   maxSizeKB: 1024,
+  firmware: defaultFirmwareSettings,
 };
 
 const dataModels: readonly DataModelSetting[] = ['ilp32', 'lp64', 'ip16'];
@@ -50,5 +55,6 @@ export function parseSettings(raw: unknown, base: ServerSettings = defaultSettin
     includeFolders: Array.isArray(folders) ? folders.filter((f): f is string => typeof f === 'string') : base.includeFolders,
     lensEnabled: typeof lens === 'boolean' ? lens : base.lensEnabled,
     maxSizeKB: typeof size === 'number' && Number.isFinite(size) && size > 0 ? size : base.maxSizeKB,
+    firmware: parseFirmwareSettings((key) => pick(raw, key), base.firmware),
   };
 }

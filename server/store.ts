@@ -8,7 +8,7 @@
 import * as path from 'node:path';
 import type { TextDocument } from 'vscode-languageserver-textdocument';
 import type { Diagnostic } from 'vscode-languageserver';
-import { WorkspaceAnalyzer, tooLargeAnalysis, type AnalyzeOptions, type CacheStats } from '../core/analyze';
+import { FirmwareCache, firmwareOptions, WorkspaceAnalyzer, tooLargeAnalysis, type AnalyzeOptions, type CacheStats } from '../core/analyze';
 import { collectFiles, languageOf } from '../core/cli/files';
 import { Code } from '../core/codes';
 import type { BlockAnalysis, DocumentAnalysis } from '../core/types';
@@ -51,6 +51,8 @@ export class AnalysisStore {
    * `@name` resolves across files and an edit upstream re-analyses its dependants in every open file.
    */
   private readonly workspace = new WorkspaceAnalyzer();
+  /** Headers and compile databases, read and preprocessed once per version for every document. */
+  private readonly firmwareCache = new FirmwareCache();
   /** Timing files in the workspace folders, found once and again when files come and go. */
   private files: string[] | undefined;
   private readonly dirty = new Map<string, number | undefined>();
@@ -154,13 +156,18 @@ export class AnalysisStore {
     const roots = this.host.roots();
     const base = folderOf(corePath, roots);
     const maxFileBytes = settings.maxSizeKB * 1024;
+    const firmware = firmwareOptions(settings.firmware, base);
+    const readLimit = Math.max(maxFileBytes, firmware.maxHeaderBytes ?? 0);
     return {
+      ...firmware,
+      firmware: this.firmwareCache,
+      version: (file) => this.host.reader.versionOf(file),
       defaultTolerance: settings.defaultTolerancePercent / 100,
       defaultSeries: settings.defaultSeries,
       dataModel: settings.dataModel,
       includeDirs: settings.includeFolders.map((dir) => (path.isAbsolute(dir) || base === undefined ? dir : path.join(base, dir))),
       workspaceRoots: roots,
-      read: (file) => this.host.reader.read(file, maxFileBytes),
+      read: (file) => this.host.reader.read(file, readLimit),
       realpath: realpathOrUndefined,
       maxFileBytes,
     };

@@ -11,6 +11,7 @@ export * from './context';
 export { AnalysisCache, type CacheStats } from './cache';
 export { analyzeWorkspace, WorkspaceAnalyzer } from './workspace';
 export { FirmwareCache } from './firmware';
+export { defaultFirmwareSettings, firmwareOptions, parseFirmwareSettings, type FirmwareSettings } from './settings';
 
 /** One document's analyser, kept while the document is open: an edit re-analyses only the blocks it touched. */
 export class Analyzer {

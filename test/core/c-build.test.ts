@@ -7,7 +7,7 @@ import { strict as assert } from 'assert';
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
-import { analyzeDocument, defaultAnalyzeOptions, FirmwareCache, type AnalyzeOptions } from '../../core/analyze';
+import { analyzeDocument, defaultAnalyzeOptions, defaultFirmwareSettings, FirmwareCache, firmwareOptions, parseFirmwareSettings, type AnalyzeOptions } from '../../core/analyze';
 import { buildConstantTable } from '../../core/c';
 import { configFromArguments, parseCompileDatabase, splitCommand } from '../../core/c/config';
 import { main } from '../../core/cli/main';
@@ -216,5 +216,32 @@ describe('headers shared between tables', () => {
     assert.equal(valueOf(build('#include "cfg.h"\n'), 'DIV'), 8n);
     assert.equal(valueOf(build('#define FAST\n#include "cfg.h"\n'), 'DIV'), 2n);
     assert.equal(valueOf(build('#include "cfg.h"\n'), 'DIV'), 8n);
+  });
+});
+
+describe('the tickmark.c.* settings', () => {
+  it('are read alike from the extension and the language server, and become the core\'s options', () => {
+    const raw: Record<string, unknown> = { 'c.defines': ['F_CPU=16000000UL', '-DFAST', '-UFAST', '9BAD', 3], 'c.compileCommands': 'out/compile_commands.json', 'c.maxHeaderSizeKB': 2048, workspaceTrusted: false };
+    const settings = parseFirmwareSettings((key) => raw[key]);
+    const options = firmwareOptions(settings, '/ws');
+    assert.deepEqual(options.macros, [{ kind: 'define', name: 'F_CPU', value: '16000000UL' }, { kind: 'define', name: 'FAST', value: '1' }, { kind: 'undef', name: 'FAST' }]);
+    assert.deepEqual(options.compileCommands, ['/ws/out/compile_commands.json']);
+    assert.equal(options.maxHeaderBytes, 2048 * 1024);
+    assert.equal(options.trusted, false);
+    // Wrong types fall back to the defaults of package.json.
+    assert.deepEqual(parseFirmwareSettings((key) => ({ 'c.maxHeaderSizeKB': -1, 'c.defines': 'X' } as Record<string, unknown>)[key]), defaultFirmwareSettings);
+  });
+
+  it('in a workspace not trusted, a folder outside it that the build names is not read', () => {
+    const dir = folder({ 'ws/main.c': '// @timing t\n// circuit: timer\n// clock: SDK_HZ\n// prescaler: 1\n// reload: 999\n#include <clock.h>\n', 'sdk/clock.h': '#define SDK_HZ 1000000u\n' });
+    const ws = path.join(dir, 'ws');
+    fs.writeFileSync(path.join(ws, 'compile_commands.json'), JSON.stringify([{ directory: ws, file: 'main.c', arguments: ['cc', '-I../sdk', '-c', 'main.c'] }]));
+    const analyse = (trusted: boolean) => analyzeDocument({ uri: path.join(ws, 'main.c'), text: fs.readFileSync(path.join(ws, 'main.c'), 'utf8'), languageId: 'c' }, {
+      ...defaultAnalyzeOptions, workspaceRoots: [ws], trusted, read: (u) => (fs.existsSync(u) ? fs.readFileSync(u, 'utf8') : undefined),
+    });
+    assert.equal(analyse(true).blocks[0].values.frequency, 1000);
+    const untrusted = analyse(false);
+    assert.equal(untrusted.blocks[0].values.frequency, undefined);
+    assert.ok(untrusted.findings.some((f) => f.code === Code.cInclude && /outside the workspace/.test(f.message)));
   });
 });
