@@ -17,6 +17,17 @@ export function isTimingHost(file: string): boolean {
 export interface CollectOptions {
   /** Globs (picomatch) of files and folders to leave out, relative to the working folder. */
   exclude?: string[];
+  /**
+   * Globs relative to a folder of their own, for files under it: an editor's `files.exclude` of each workspace
+   * folder (`**\/.git`, `build/**`). Matched against the path from that folder only.
+   */
+  excludeIn?: Array<{ folder: string; globs: string[] }>;
+}
+
+/** The patterns an editor's `files.exclude` setting turns on (`true`; a `when` condition is not a plain exclusion). */
+export function enabledGlobs(setting: unknown): string[] {
+  if (setting === null || typeof setting !== 'object') return [];
+  return Object.entries(setting as Record<string, unknown>).filter(([, on]) => on === true).map(([glob]) => glob);
 }
 
 /** One folder's ignore rules: git reads `.gitignore` patterns relative to the folder that holds the file. */
@@ -86,7 +97,14 @@ function isGlob(given: string, cwd: string): boolean {
 export function collectFiles(paths: string[], cwd: string, options: CollectOptions = {}): { files: string[]; problems: string[] } {
   const files = new Set<string>();
   const problems: string[] = [];
-  const isExcluded = excluder(options.exclude ?? [], cwd);
+  const byArgument = excluder(options.exclude ?? [], cwd);
+  const byFolder = (options.excludeIn ?? []).filter((e) => e.globs.length).map((e) => ({ folder: e.folder, match: picomatch(e.globs, { dot: true }) }));
+  const isExcluded = (full: string) =>
+    byArgument(full) ||
+    byFolder.some(({ folder, match }) => {
+      const relative = path.relative(folder, full);
+      return relative !== '' && !relative.startsWith('..') && !path.isAbsolute(relative) && match(relative.split(path.sep).join('/'));
+    });
   const walker = new Walker(files, isExcluded);
   for (const given of paths) {
     if (isGlob(given, cwd)) {

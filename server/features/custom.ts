@@ -2,8 +2,9 @@
 // of a kind in the block under the cursor, the workspace check, and cache figures for tests and the bench.
 import * as fs from 'node:fs';
 import * as path from 'node:path';
+import { pathToFileURL } from 'node:url';
 import { TextDocument } from 'vscode-languageserver-textdocument';
-import { collectFiles, languageOf } from '../../core/cli/files';
+import { collectFiles, enabledGlobs, languageOf } from '../../core/cli/files';
 import type { Feature, ServerContext } from '../context';
 import { corePathOf, folderOf } from '../files';
 import { placedFindings, type PlacedFinding } from '../findings';
@@ -53,7 +54,8 @@ export const custom: Feature = {
     connection.onRequest(cacheStatsRequest, (params: { uri: string }): CacheStatsAnswer => ctx.store.cacheStats(params.uri) ?? null);
 
     const fromDisk = new Set<string>();
-    connection.onRequest(checkWorkspaceRequest, (_params: unknown, token): WorkspaceSummary => checkWorkspace(ctx, fromDisk, () => token.isCancellationRequested));
+    connection.onRequest(checkWorkspaceRequest, async (_params: unknown, token): Promise<WorkspaceSummary> =>
+      checkWorkspace(ctx, fromDisk, () => token.isCancellationRequested, await filesExclude(ctx)));
     // A file the check reported and an editor then closed keeps its problems from disk.
     ctx.documents.onDidClose((e) => {
       if (fromDisk.has(e.document.uri)) recheckFromDisk(ctx, e.document.uri);
@@ -78,12 +80,24 @@ function recheckFromDisk(ctx: ServerContext, uri: string): void {
   }
 }
 
-function checkWorkspace(ctx: ServerContext, fromDisk: Set<string>, stop: () => boolean): WorkspaceSummary {
+/** Each workspace folder's `files.exclude` (the client's setting, per folder); none when the client has no answer. */
+async function filesExclude(ctx: ServerContext): Promise<Array<{ folder: string; globs: string[] }>> {
+  const roots = ctx.roots();
+  try {
+    const settings: unknown[] = await ctx.connection.workspace.getConfiguration(roots.map((root) => ({ section: 'files.exclude', scopeUri: pathToFileURL(root).href })));
+    return roots.map((folder, i) => ({ folder, globs: enabledGlobs(settings[i]) }));
+  } catch {
+    return [];
+  }
+}
+
+function checkWorkspace(ctx: ServerContext, fromDisk: Set<string>, stop: () => boolean, excludeIn: Array<{ folder: string; globs: string[] }> = []): WorkspaceSummary {
   const summary: WorkspaceSummary = { files: 0, blocks: 0, errors: 0, warnings: 0, skipped: [] };
   const roots = ctx.roots();
   const limit = ctx.settings().maxSizeKB * 1024;
   const relative = (file: string) => path.relative(folderOf(file, roots) ?? '', file).split(path.sep).join('/');
-  for (const file of collectFiles(roots, roots[0] ?? process.cwd()).files) {
+  // The same files a `tickmark check` of the folders reads (types, .gitignore), less the editor's files.exclude.
+  for (const file of collectFiles(roots, roots[0] ?? process.cwd(), { excludeIn }).files) {
     if (stop()) break;
     const uri = ctx.reader.uriOf(file);
     const open = ctx.documents.get(uri);
