@@ -55,6 +55,12 @@ describe('MARKETPLACE.md, the page of the .vsix', () => {
     }
   });
 
+  it('gives every setting a scope, so a multi-root workspace can set it per folder where that makes sense', () => {
+    for (const [name, setting] of Object.entries(pkg.contributes.configuration.properties as Record<string, { scope?: string }>)) {
+      assert.ok(['application', 'machine', 'machine-overridable', 'window', 'resource', 'language-overridable'].includes(setting.scope ?? ''), `${name} has no scope`);
+    }
+  });
+
   it('lists every command and setting the extension contributes', () => {
     for (const command of pkg.contributes.commands) assert.ok(page.includes(command.title), command.title);
     for (const setting of Object.keys(pkg.contributes.configuration.properties)) assert.ok(page.includes(`\`${setting}\``), setting);
