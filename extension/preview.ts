@@ -69,12 +69,14 @@ export function renderTimingBlock(md: MarkdownIt, block: PreviewBlock, fence: Ti
   const out: string[] = ['<div class="tickmark-block">'];
   const title = view?.modelled ? ` — ${esc(view.title)}` : '';
   out.push(`<table class="tickmark-results"><caption><strong>${esc(view?.name ?? 'timing block')}</strong>${title}</caption>`);
-  if (view && (view.results.length > 0 || view.solved.length > 0)) {
+  if (view && (view.results.length > 0 || view.solved.length > 0 || view.references.length > 0)) {
     const header = ['result', 'value', 'worst case', ...(view.hasPercentiles ? ['1–99 % of samples'] : [])];
     out.push(`<thead><tr>${header.map((h) => `<th>${esc(h)}</th>`).join('')}</tr></thead><tbody>`);
     const cells = (texts: string[]) => `<tr>${texts.map((t) => `<td>${esc(t)}</td>`).join('')}</tr>`;
     for (const row of view.results) out.push(cells([row.label, row.value, row.worstCase, ...(view.hasPercentiles ? [row.percentiles] : [])]));
     for (const row of view.solved) out.push(cells([`solved ${row.key}`, row.value, '', ...(view.hasPercentiles ? [''] : [])]));
+    // Values read from other blocks, as values, with the block they come from.
+    for (const ref of view.references) out.push(cells([`from ${ref.label}`, ref.value, '', ...(view.hasPercentiles ? [''] : [])]));
     out.push('</tbody>');
   }
   out.push('</table>');

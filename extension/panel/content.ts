@@ -14,7 +14,11 @@ export function panelBlock(uri: string, analysis: BlockAnalysis): PanelBlock {
     line: view.line,
     headline: view.headline,
     values: { ...analysis.values },
-    results: view.results.map((row) => ({ key: row.key, label: row.label, text: row.value })),
+    // Values read from other blocks (`clock: @slow-bus`) show as values too, named by their reference.
+    results: [
+      ...view.results.map((row) => ({ key: row.key, label: row.label, text: row.value })),
+      ...view.references.map((ref) => ({ key: ref.label, label: `from ${ref.label}`, text: ref.value })),
+    ],
     findings: analysis.findings.map((f) => ({ severity: f.severity, message: f.message })),
   };
 }
