@@ -132,6 +132,18 @@ export interface BlockReference {
 /** Allowed integers: an explicit list, or an inclusive range. */
 export type IntegerSet = { kind: 'list'; values: number[] } | { kind: 'range'; min: number; max: number };
 
+/** An inclusive interval in SI units (`vco-range: 96 MHz .. 344 MHz`). */
+export interface Interval {
+  min: number;
+  max: number;
+}
+
+/** A relative tolerance band of an input (fractions: 20 ppm is 2e-5). */
+export interface Band {
+  plus: number;
+  minus: number;
+}
+
 export interface BlockAnalysis {
   /** Name as written, or `circuit@line`. */
   name: string;
@@ -146,6 +158,9 @@ export interface BlockAnalysis {
   choices: Record<string, string>;
   /** Sets of allowed integers (`prescalers: 1, 8, 64`), as the model was given them. */
   lists: Record<string, IntegerSet>;
+  /** Range keys as given (`vco-range`) and each toleranced input's relative band, as the model was given them. */
+  ranges?: Record<string, Interval>;
+  tolerances?: Record<string, Band>;
   /** Results that could be computed; never NaN or infinite. */
   values: Record<string, number>;
   spread?: Record<string, SpreadRange>;

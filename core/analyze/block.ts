@@ -96,6 +96,8 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   if (blocked() || plan.unknowns.some((u) => !(u.key in overrides))) return analysis;
 
   const input = modelInput(plan, params, true, overrides);
+  analysis.ranges = { ...plan.ranges };
+  analysis.tolerances = input.tolerances;
   // The parameter table's limits speak first; the model's own check of the same key would only repeat them.
   const limits = limitIssues(model, params);
   const flagged = new Set(limits.map((i) => i.key));

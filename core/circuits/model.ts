@@ -65,19 +65,8 @@ export interface RangeParam {
 
 export type ParamSpec = QuantityParam | ChoiceParam | ListParam | RangeParam;
 
-/** An inclusive interval in SI units. */
-export interface Interval {
-  min: number;
-  max: number;
-}
-
-/** A relative tolerance band of an input (fractions: 20 ppm is 2e-5). */
-export interface Band {
-  plus: number;
-  minus: number;
-}
-
-export type { IntegerSet } from '../types';
+export type { IntegerSet, Interval, Band } from '../types';
+import type { Interval, Band } from '../types';
 import type { IntegerSet } from '../types';
 
 /** Resolved inputs of a model. */

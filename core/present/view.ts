@@ -166,7 +166,7 @@ function assumptionApplies(model: CircuitModel, choices: Readonly<Record<string,
 function workingOf(model: CircuitModel, analysis: BlockAnalysis): WorkingLine[] {
   if (!Object.keys(analysis.values).length) return [];
   try {
-    return model.working({ values: analysis.params, choices: analysis.choices, lists: analysis.lists, name: analysis.block.name }, analysis.values);
+    return model.working({ values: analysis.params, choices: analysis.choices, lists: analysis.lists, ranges: analysis.ranges, tolerances: analysis.tolerances, name: analysis.block.name }, analysis.values);
   } catch {
     return [];
   }

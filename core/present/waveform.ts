@@ -13,7 +13,7 @@ export function waveformFor(analysis: BlockAnalysis, cycles = defaultCycles): Wa
   if (!model?.waveform || Object.keys(analysis.values).length === 0) return undefined;
   const count = Math.min(Math.max(1, Math.round(cycles)), maxCycles);
   try {
-    return model.waveform({ values: analysis.params, choices: analysis.choices, lists: analysis.lists, name: analysis.block.name }, count);
+    return model.waveform({ values: analysis.params, choices: analysis.choices, lists: analysis.lists, ranges: analysis.ranges, tolerances: analysis.tolerances, name: analysis.block.name }, count);
   } catch {
     return undefined;
   }

@@ -74,3 +74,33 @@ describe('adc-sample', () => {
     assert.ok(block.values.margin < 0);
   });
 });
+
+describe('bus and ADC waveforms', () => {
+  const crossing = (points: Array<[number, number]>, level: number) => {
+    for (let i = 1; i < points.length; i++) {
+      const [t0, v0] = points[i - 1];
+      const [t1, v1] = points[i];
+      if (v0 < level && v1 >= level) return t0 + ((t1 - t0) * (level - v0)) / (v1 - v0);
+    }
+    return NaN;
+  };
+
+  // The drawn edge is the RC charging law itself: it passes 30 % and 70 % ln(7/3)·RC apart (I²C-bus specification).
+  it('draws the I²C edge against its 30 % and 70 % levels', () => {
+    const input = withDefaults(i2c, { values: { supply: 3.3, pullup: 2.2e3, 'bus-c': 150e-12 } });
+    const wave = i2c.waveform!(input, 1);
+    assert.deepEqual(wave.levels.map((l) => l.value), [0.3 * 3.3, 0.7 * 3.3]);
+    const points = wave.traces[0].points;
+    const rise = crossing(points, 0.7 * 3.3) - crossing(points, 0.3 * 3.3);
+    assert.ok(Math.abs(rise / (Math.log(7 / 3) * 2.2e3 * 150e-12) - 1) < 0.01);
+  });
+
+  it('draws the ADC settling against ½ LSB and the sampling window', () => {
+    const input = withDefaults(adc, { values: { bits: 8, 'r-source': 1e3, 'r-switch': 1e3, 'c-sample': 10e-12, 'sample-time': 200e-9 } });
+    const wave = adc.waveform!(input, 1);
+    assert.equal(wave.levels[0].value, 1 - 2 ** -9);
+    // RC law: 1 − e^(−t/τ) reaches 1 − 2^−9 at 9·ln2·τ.
+    assert.ok(Math.abs(crossing(wave.traces[0].points, 1 - 2 ** -9) / (9 * Math.LN2 * 20e-9) - 1) < 0.01);
+    assert.deepEqual(wave.traces[1].points.slice(0, 3), [[0, 1], [200e-9, 1], [200e-9, 0]]);
+  });
+});
