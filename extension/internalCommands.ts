@@ -1,7 +1,7 @@
 // Commands for the editor tests and the bench, not contributed in package.json: they never appear in the
 // command palette, but executeCommand reaches them.
 import * as vscode from 'vscode';
-import type { AnalysisStore } from './analysisStore';
+import { clientLoadMs, type ServerRequests } from './client';
 import type { CacheStats } from './engine';
 import { engineLoadState } from './engine';
 
@@ -22,9 +22,13 @@ export interface ActivationRecord {
   activateMs: number;
   /** Whether the core engine had been loaded by the end of activate() (it should not be). */
   engineLoadedAtActivation: boolean;
-  /** Whether it is loaded now, and how long its first load took. */
+  /** Whether it is loaded in the extension host now (the preview and the panel load it), and how long its first load took. */
   engineLoaded: boolean;
   engineLoadMs?: number;
+  /** From the end of activate() to the language server's answer to `initialize` (its own process); undefined until then. */
+  serverReadyMs?: number;
+  /** Loading the language client library on the host's thread, just after activation (out/client.js). */
+  clientLoadMs?: number;
 }
 
 export interface ActivationMarks {
@@ -33,9 +37,10 @@ export interface ActivationMarks {
   activateStart: number;
   activateEnd: number;
   engineLoadedAtActivation: boolean;
+  serverReady?: number;
 }
 
-export function registerInternalCommands(store: AnalysisStore, marks: () => ActivationMarks | undefined): vscode.Disposable {
+export function registerInternalCommands(requests: ServerRequests, marks: () => ActivationMarks | undefined): vscode.Disposable {
   return vscode.Disposable.from(
     vscode.commands.registerCommand(internalCommandIds.activationTime, (): ActivationRecord | undefined => {
       const m = marks();
@@ -49,9 +54,12 @@ export function registerInternalCommands(store: AnalysisStore, marks: () => Acti
         engineLoadedAtActivation: m.engineLoadedAtActivation,
         engineLoaded: now.loaded,
         engineLoadMs: now.loadMs,
+        serverReadyMs: m.serverReady === undefined ? undefined : m.serverReady - m.activateEnd,
+        clientLoadMs,
       };
     }),
-    vscode.commands.registerCommand(internalCommandIds.cacheStats, (uri: vscode.Uri | string): CacheStats | undefined =>
-      store.cacheStatsOf(typeof uri === 'string' ? vscode.Uri.parse(uri) : uri)),
+    // The server's analyser of the document: blocks in its last pass and how many were evaluated afresh.
+    vscode.commands.registerCommand(internalCommandIds.cacheStats, async (uri: vscode.Uri | string): Promise<CacheStats | undefined> =>
+      (await requests.cacheStats(typeof uri === 'string' ? vscode.Uri.parse(uri) : uri)) ?? undefined),
   );
 }

@@ -7,9 +7,10 @@ export interface Logger {
   error(message: string, cause?: unknown): void;
 }
 
-export function createLogger(): Logger & vscode.Disposable {
+export function createLogger(): Logger & vscode.Disposable & { readonly channel: vscode.LogOutputChannel } {
   const channel = vscode.window.createOutputChannel('Tickmark', { log: true });
   return {
+    channel,
     info: (message) => channel.info(message),
     warn: (message) => channel.warn(message),
     error: (message, cause) => channel.error(cause === undefined ? message : `${message}: ${describeCause(cause)}`),

@@ -2,7 +2,7 @@
 // cursor, redrawn (debounced) as the document changes, and restored after a window reload.
 import * as vscode from 'vscode';
 import type { PanelState } from '../media/messages';
-import type { AnalysisStore } from './analysisStore';
+import type { ServerRequests } from './client';
 import { commandIds } from './commandIds';
 import { isTimingDocument } from './documents';
 import type { Logger } from './logger';
@@ -10,7 +10,7 @@ import { PanelEvents } from './panel/events';
 import { isPanelState, panelOptions, waveformViewType, WaveformPanel, type PanelDeps } from './panel/panel';
 
 export interface WaveformDeps {
-  store: AnalysisStore;
+  requests: ServerRequests;
   logger: Logger;
   extensionUri: vscode.Uri;
 }
@@ -22,9 +22,9 @@ export interface WaveformFeature extends vscode.Disposable {
   readonly events: PanelEvents;
 }
 
-export function registerWaveform({ store, logger, extensionUri }: WaveformDeps): WaveformFeature {
+export function registerWaveform({ requests, logger, extensionUri }: WaveformDeps): WaveformFeature {
   const events = new PanelEvents();
-  const deps: PanelDeps = { store, logger, extensionUri, events };
+  const deps: PanelDeps = { requests, logger, extensionUri, events };
   let current: WaveformPanel | undefined;
   let timer: ReturnType<typeof setTimeout> | undefined;
 
@@ -37,15 +37,15 @@ export function registerWaveform({ store, logger, extensionUri }: WaveformDeps):
     return panel;
   };
 
-  const show = async (uri?: vscode.Uri, name?: string): Promise<boolean> => {
+  /** `uri` may be the string a code lens carries (server/features/lens.ts). */
+  const show = async (uri?: vscode.Uri | string, name?: string): Promise<boolean> => {
     const editor = vscode.window.activeTextEditor;
-    const doc = uri instanceof vscode.Uri ? await vscode.workspace.openTextDocument(uri) : editor?.document;
+    const target = typeof uri === 'string' ? vscode.Uri.parse(uri) : uri;
+    const doc = target instanceof vscode.Uri ? await vscode.workspace.openTextDocument(target) : editor?.document;
     if (!doc || !isTimingDocument(doc)) return false;
-    const blocks = store.analysisOf(doc).blocks;
-    const block =
-      (typeof name === 'string' ? blocks.find((b) => b.name === name) : undefined) ??
-      (editor?.document === doc ? store.blockAt(doc, editor.selection.active) : undefined) ??
-      blocks[0];
+    // The named block, else the one under the cursor, else the document's first.
+    const answer = await requests.block(doc.uri, { name: typeof name === 'string' ? name : undefined, position: editor?.document === doc ? editor.selection.active : undefined });
+    const block = answer.block ?? (answer.names[0] !== undefined ? (await requests.block(doc.uri, { name: answer.names[0] })).block : undefined);
     if (!block) return false;
     if (current) current.panel.reveal(undefined, true);
     else {
@@ -57,9 +57,13 @@ export function registerWaveform({ store, logger, extensionUri }: WaveformDeps):
     return true;
   };
 
-  const follow = (editor: vscode.TextEditor): void => {
+  let following = 0;
+  const follow = async (editor: vscode.TextEditor): Promise<void> => {
     if (!current || !isTimingDocument(editor.document)) return;
-    const block = store.blockAt(editor.document, editor.selection.active);
+    const asked = ++following;
+    const { block } = await requests.block(editor.document.uri, { position: editor.selection.active });
+    // A later cursor move has asked again: this answer is stale.
+    if (asked !== following || !current) return;
     const target = current.target;
     if (!block || (target && target.block === block.name && target.uri.toString() === editor.document.uri.toString())) return;
     current.show({ uri: editor.document.uri, block: block.name });
@@ -84,11 +88,11 @@ export function registerWaveform({ store, logger, extensionUri }: WaveformDeps):
     events,
     vscode.commands.registerCommand(commandIds.showWaveform, show),
     vscode.window.registerWebviewPanelSerializer(waveformViewType, serializer),
-    vscode.window.onDidChangeTextEditorSelection((e) => follow(e.textEditor)),
+    vscode.window.onDidChangeTextEditorSelection((e) => void follow(e.textEditor).catch((cause) => logger.error('panel follow failed', cause))),
     vscode.workspace.onDidChangeTextDocument((e) => {
       if (current?.target && e.document.uri.toString() === current.target.uri.toString()) redrawSoon();
     }),
-    store.onDidInvalidate(redrawSoon),
+    vscode.workspace.onDidChangeConfiguration((e) => e.affectsConfiguration('tickmark') && redrawSoon()),
     { dispose: () => (clearTimeout(timer), current?.dispose()) },
   );
   return { events, dispose: () => disposables.dispose() };

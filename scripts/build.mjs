@@ -28,6 +28,15 @@ const lazyEngine = {
   },
 };
 
+// extension/client.ts requires './clientCore' just after activation: out/client.js, the language client library.
+const lazyClient = {
+  name: 'lazy-client',
+  setup(build) {
+    build.onResolve({ filter: /^\.\/clientCore$/ }, (args) =>
+      path.resolve(args.resolveDir) === at('extension') ? { path: './client.js', external: true } : undefined);
+  },
+};
+
 /** @type {esbuild.BuildOptions[]} */
 const targets = [
   {
@@ -38,7 +47,16 @@ const targets = [
     platform: 'node',
     target: 'node20',
     external: ['vscode'],
-    plugins: [lazyEngine],
+    plugins: [lazyEngine, lazyClient],
+  },
+  {
+    ...common,
+    entryPoints: [at('extension/clientCore.ts')],
+    outfile: at('out/client.js'),
+    format: 'cjs',
+    platform: 'node',
+    target: 'node20',
+    external: ['vscode'],
   },
   {
     ...common,

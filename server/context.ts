@@ -17,6 +17,8 @@ export interface ServerContext {
   settings(): ServerSettings;
   /** Workspace folders as absolute paths. */
   roots(): string[];
+  /** Reads the settings from the client again (workspace/configuration) before an answer that depends on them. */
+  refreshSettings(): Promise<void>;
   /** What the client said it can do, from initializationOptions (beside the `tickmark` settings). */
   client: ClientOptions;
   log(message: string): void;

@@ -38,7 +38,10 @@ export function startServer(connection: Connection = createConnection(ProposedFe
     publish: (uri, docVersion, diagnostics) => void connection.sendDiagnostics({ uri, version: docVersion, diagnostics }),
     log,
   });
-  const ctx: ServerContext = { connection, documents, store, reader, settings: () => settings, roots: () => folders, client, log };
+  const ctx: ServerContext = {
+    connection, documents, store, reader, settings: () => settings, roots: () => folders, client, log,
+    refreshSettings: () => (canPullConfiguration ? pullSettings() : Promise.resolve()),
+  };
 
   const contributors: Contributors = { definition: [], references: [], completion: [], prepareRename: [], rename: [] };
   for (const feature of features) feature.contribute?.(contributors);
@@ -78,15 +81,16 @@ export function startServer(connection: Connection = createConnection(ProposedFe
     });
   });
 
-  /** workspace/configuration for `tickmark`, over the initializationOptions; every document re-analysed. */
+  /** workspace/configuration for `tickmark`, over the initializationOptions; documents re-analysed when they differ. */
   const pullSettings = async (): Promise<void> => {
+    const before = settings;
     try {
       const [section] = await connection.workspace.getConfiguration([{ section: 'tickmark', scopeUri: folders[0] ? reader.uriOf(folders[0]) : undefined }]);
       settings = parseSettings(section, initialSettings);
     } catch (cause) {
       log(`reading the tickmark settings failed: ${String(cause)}`);
     }
-    settingsChanged();
+    if (JSON.stringify(before) !== JSON.stringify(settings)) settingsChanged();
   };
 
   const settingsChanged = (): void => {
@@ -98,7 +102,8 @@ export function startServer(connection: Connection = createConnection(ProposedFe
     if (canPullConfiguration) return void pullSettings();
     // A client that pushes its settings: `{ tickmark: { … } }`.
     const pushed = (change.settings as { tickmark?: unknown } | undefined)?.tickmark;
-    if (pushed !== undefined) settings = parseSettings(pushed, initialSettings);
+    if (pushed === undefined) return;
+    settings = parseSettings(pushed, initialSettings);
     settingsChanged();
   });
 

@@ -1,7 +1,7 @@
 // One waveform panel: the webview, the block it shows (document and name), and the messages both ways.
 import * as vscode from 'vscode';
 import type { HostMessage, PanelMessage, PanelState } from '../../media/messages';
-import type { AnalysisStore } from '../analysisStore';
+import type { ServerRequests } from '../client';
 import type { Logger } from '../logger';
 import { showMessage } from './content';
 import type { PanelEvents } from './events';
@@ -11,7 +11,7 @@ import { newNonce, panelHtml } from './html';
 export const waveformViewType = 'tickmark.waveform';
 
 export interface PanelDeps {
-  store: AnalysisStore;
+  requests: ServerRequests;
   logger: Logger;
   extensionUri: vscode.Uri;
   events: PanelEvents;
@@ -59,12 +59,22 @@ export class WaveformPanel implements vscode.Disposable {
     this.refresh();
   }
 
+  /** Asks the server for the block; an answer overtaken by a newer refresh is dropped. */
   refresh(): void {
-    if (!this.target) return this.post({ type: 'empty', reason: 'Put the cursor in a timing block to see its waveform.' });
-    const doc = openDocument(this.target.uri);
-    if (!doc) return void this.reopen(this.target);
-    const analysis = this.deps.store.analysisOf(doc).blocks.find((b) => b.name === this.target!.block);
-    if (!analysis) return this.post({ type: 'empty', reason: `No timing block named “${this.target.block}” in this file any more.` });
+    void this.redraw().catch((cause) => this.deps.logger.error('panel redraw failed', cause));
+  }
+
+  private generation = 0;
+
+  private async redraw(): Promise<void> {
+    const asked = ++this.generation;
+    const target = this.target;
+    if (!target) return this.post({ type: 'empty', reason: 'Put the cursor in a timing block to see its waveform.' });
+    const doc = openDocument(target.uri);
+    if (!doc) return void this.reopen(target);
+    const { block: analysis } = await this.deps.requests.block(doc.uri, { name: target.block });
+    if (asked !== this.generation) return;
+    if (!analysis || analysis.name !== target.block) return this.post({ type: 'empty', reason: `No timing block named “${target.block}” in this file any more.` });
     this.panel.title = `Waveform: ${analysis.name}`;
     this.post(showMessage(doc.uri.toString(), analysis));
   }
@@ -102,8 +112,8 @@ export class WaveformPanel implements vscode.Disposable {
 
   private async exportCurrent(): Promise<void> {
     const doc = this.target && openDocument(this.target.uri);
-    const analysis = doc && this.deps.store.analysisOf(doc).blocks.find((b) => b.name === this.target!.block);
-    if (!doc || !analysis) return;
+    const analysis = doc && (await this.deps.requests.block(doc.uri, { name: this.target!.block })).block;
+    if (!doc || !analysis || analysis.name !== this.target!.block) return;
     try {
       const saved = await exportWaveformSvg(doc, analysis);
       if (saved) this.deps.logger.info(`waveform of ${analysis.name} exported to ${saved.toString()}`);

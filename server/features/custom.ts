@@ -54,8 +54,11 @@ export const custom: Feature = {
     connection.onRequest(cacheStatsRequest, (params: { uri: string }): CacheStatsAnswer => ctx.store.cacheStats(params.uri) ?? null);
 
     const fromDisk = new Set<string>();
-    connection.onRequest(checkWorkspaceRequest, async (_params: unknown, token): Promise<WorkspaceSummary> =>
-      checkWorkspace(ctx, fromDisk, () => token.isCancellationRequested, await filesExclude(ctx)));
+    connection.onRequest(checkWorkspaceRequest, async (_params: unknown, token): Promise<WorkspaceSummary> => {
+      // The check runs with the settings as they are now (a setting changed a moment ago counts).
+      await ctx.refreshSettings();
+      return checkWorkspace(ctx, fromDisk, () => token.isCancellationRequested, await filesExclude(ctx));
+    });
     // A file the check reported and an editor then closed keeps its problems from disk.
     ctx.documents.onDidClose((e) => {
       if (fromDisk.has(e.document.uri)) recheckFromDisk(ctx, e.document.uri);

@@ -37,7 +37,7 @@ export function activationTests(): void {
       assert.deepEqual(missing, []);
     });
 
-    it('activates without loading the core engine, and loads it for the first analysis', async () => {
+    it('activates without loading the core engine, and analyses in the language server, not in the extension host', async () => {
       await activeExtension();
       const record = await vscode.commands.executeCommand<ActivationRecord>('tickmark.internal.activationTime');
       assert.ok(record, 'the extension recorded no activation');
@@ -51,8 +51,10 @@ export function activationTests(): void {
       const titles = await lensTitles(await fixtureUri('notes/clock.md'));
       assert.ok(titles.some((t) => t.includes('Hz')), titles.join(' | '));
       const after = await vscode.commands.executeCommand<ActivationRecord>('tickmark.internal.activationTime');
-      assert.equal(after?.engineLoaded, true);
-      console.log(`      first analysis loaded the engine in ${after?.engineLoadMs?.toFixed(1)} ms`);
+      // The lenses above were computed by the server's process: the host has still not loaded the core.
+      assert.equal(after?.engineLoaded, false, 'the extension host loaded the core engine for an analysis');
+      assert.ok(after?.serverReadyMs !== undefined && after.serverReadyMs >= 0, JSON.stringify(after));
+      console.log(`      language client loaded in ${after.clientLoadMs?.toFixed(1)} ms just after activation; server ready ${after.serverReadyMs.toFixed(1)} ms after activation`);
     });
 
     it('reads its settings with the defaults package.json declares', async () => {

@@ -8,6 +8,8 @@ export async function activeExtension(): Promise<vscode.Extension<unknown>> {
   const extension = vscode.extensions.getExtension(extensionId);
   if (!extension) throw new Error(`${extensionId} is not loaded in this host`);
   await extension.activate();
+  // Activation only starts the language server; its features register once it has answered.
+  await (extension.exports as { ready?: Promise<void> } | undefined)?.ready;
   return extension;
 }
 

@@ -17,7 +17,8 @@ import { previewTests } from './preview.test';
 import { rangeTests } from './ranges.test';
 
 export function run(): Promise<void> {
-  const mocha = new Mocha({ ui: 'bdd', color: false, reporter: 'spec', timeout: 30_000 });
+  // TICKMARK_EDITOR_GREP on the editor host's environment runs only the matching tests (development).
+  const mocha = new Mocha({ ui: 'bdd', color: false, reporter: 'spec', timeout: 30_000, grep: process.env.TICKMARK_EDITOR_GREP });
   mocha.suite.emit('pre-require', globalThis, 'tickmark-editor-suite', mocha);
   activationTests();
   activationCacheTests();
