@@ -59,7 +59,9 @@ export function registerInternalCommands(requests: ServerRequests, marks: () => 
       };
     }),
     // The server's analyser of the document: blocks in its last pass and how many were evaluated afresh.
-    vscode.commands.registerCommand(internalCommandIds.cacheStats, async (uri: vscode.Uri | string): Promise<CacheStats | undefined> =>
-      (await requests.cacheStats(typeof uri === 'string' ? vscode.Uri.parse(uri) : uri)) ?? undefined),
+    vscode.commands.registerCommand(internalCommandIds.cacheStats, async (uri: vscode.Uri | string): Promise<CacheStats | undefined> => {
+      const stats = await requests.cacheStats(typeof uri === 'string' ? vscode.Uri.parse(uri) : uri);
+      return stats ? { blocks: stats.blocks, evaluated: stats.evaluated } : undefined;
+    }),
   );
 }

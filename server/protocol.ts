@@ -44,6 +44,9 @@ export interface WorkspaceSummary {
   skipped: string[];
 }
 
-/** `tickmark/cacheStats`: blocks in the document's last analysis and how many were evaluated afresh. */
+/**
+ * `tickmark/cacheStats`: blocks in the document's last analysis and how many were evaluated afresh, how long that
+ * analysis took in the server (ms), and how often its firmware constant tables were built or kept.
+ */
 export const cacheStatsRequest = 'tickmark/cacheStats';
-export type CacheStatsAnswer = CacheStats | null;
+export type CacheStatsAnswer = (CacheStats & { analysisMs?: number; tables?: { built: number; reused: number } }) | null;

@@ -38,6 +38,8 @@ export interface StoreHost {
 
 interface State {
   last?: Analysed;
+  /** How long the last analysis of this document took, its workspace pass included (ms). */
+  analysisMs?: number;
   /** Dropped by a change elsewhere (a header, the settings): re-analyse even at the same version. */
   stale: boolean;
 }
@@ -126,8 +128,10 @@ export class AnalysisStore {
     return [...this.states.keys()];
   }
 
-  cacheStats(uri: string): CacheStats | undefined {
-    return this.states.has(uri) ? this.workspace.stats(corePathOf(uri)) : undefined;
+  cacheStats(uri: string): (CacheStats & { analysisMs?: number; tables?: { built: number; reused: number } }) | undefined {
+    const state = this.states.get(uri);
+    const stats = state && this.workspace.stats(corePathOf(uri));
+    return stats && { ...stats, analysisMs: state!.analysisMs, tables: this.workspace.tableCounts(corePathOf(uri)) };
   }
 
   /** The last analyses of every document the workspace pass saw (open or not), for references across files. */
@@ -260,6 +264,7 @@ export class AnalysisStore {
     const options = this.optionsFor(corePath);
     const text = doc.getText();
     let others: Array<[TextDocument, DocumentAnalysis]> = [];
+    const start = performance.now();
     const analysis = this.guarded(corePath, () => {
       const own = tooLarge(corePath, text, options);
       if (own) return own;
@@ -275,6 +280,7 @@ export class AnalysisStore {
       });
       return pass.analyses.get(corePath)!;
     });
+    state.analysisMs = performance.now() - start;
     const entry = this.record(doc, state, analysis);
     for (const [other, found] of others) this.record(other, this.states.get(other.uri)!, found);
     return entry;

@@ -3,6 +3,7 @@ import type { Finding, ResolvedIdentifier } from '../types';
 import { Code } from '../codes';
 import type { MacroFlag } from '../c/config';
 import type { FirmwareCache } from './firmware';
+import type { ConstantTableCache } from './tables';
 import { evaluateWithoutFirmware } from './registers';
 
 export type DataModelName = 'ilp32' | 'lp64' | 'ip16';
@@ -37,6 +38,8 @@ export interface AnalyzeOptions {
   version?: (path: string) => string | undefined;
   /** Shared between documents and passes: files, compile databases and preprocessed headers. */
   firmware?: FirmwareCache;
+  /** Constant tables kept across edits of one document (its Analyzer's); none for a one-off analysis. */
+  tables?: ConstantTableCache;
 }
 
 export const defaultAnalyzeOptions: Omit<AnalyzeOptions, 'read'> = {

@@ -2,6 +2,7 @@
 import type { DocumentAnalysis, TextDocumentLike } from '../types';
 import type { AnalyzeOptions } from './context';
 import { AnalysisCache, type CacheStats } from './cache';
+import { ConstantTableCache } from './tables';
 import { analyzeWorkspace } from './workspace';
 
 export { tooLargeAnalysis } from './document';
@@ -9,6 +10,7 @@ export { tooLargeAnalysis } from './document';
 export { analyzeBlock } from './block';
 export * from './context';
 export { AnalysisCache, type CacheStats } from './cache';
+export { ConstantTableCache } from './tables';
 export { analyzeWorkspace, WorkspaceAnalyzer } from './workspace';
 export { FirmwareCache } from './firmware';
 export { defaultFirmwareSettings, firmwareOptions, parseFirmwareSettings, type FirmwareSettings } from './settings';
@@ -16,8 +18,10 @@ export { defaultFirmwareSettings, firmwareOptions, parseFirmwareSettings, type F
 /** One document's analyser, kept while the document is open: an edit re-analyses only the blocks it touched. */
 export class Analyzer {
   private readonly cache = new AnalysisCache();
+  /** Firmware constant tables, kept while only comments (timing blocks) of the document change. */
+  readonly tables = new ConstantTableCache();
   analyze(doc: TextDocumentLike, options: AnalyzeOptions): DocumentAnalysis {
-    return analyzeDocument(doc, options, this.cache);
+    return analyzeDocument(doc, { ...options, tables: this.tables }, this.cache);
   }
   /** Blocks in the last pass, and how many of them were analysed afresh. */
   get stats(): CacheStats {

@@ -19,17 +19,21 @@ export function cFileSource(filePath: string, text: string, options: AnalyzeOpti
     if (!found) {
       const { config, problems } = cache.configFor(filePath, { ...options, workspaceRoots: roots });
       configProblems = problems.map((message) => ({ severity: 'warning', code: Code.cInclude, message, span: { start: 0, end: 0 } }));
-      found = buildConstantTable(filePath, text, {
+      const read = (uri: string) => cache.read(uri, options);
+      const build = (reader: typeof read) => buildConstantTable(filePath, text, {
         dataModel: dataModel as DataModel,
         includeDirs: options.includeDirs,
         workspaceRoots: roots,
-        read: (uri) => cache.read(uri, options),
+        read: reader,
         realpath: options.realpath,
         maxFileBytes: options.maxFileBytes,
         maxHeaderBytes: options.maxHeaderBytes,
         config,
         headerMemo: cache.headers,
       });
+      // An open document's tables are kept across edits that leave its code, its configuration and its headers as they were.
+      const key = JSON.stringify([dataModel, options.includeDirs, roots, options.maxFileBytes, options.maxHeaderBytes ?? null, config ?? null]);
+      found = options.tables ? options.tables.table(filePath, text, key, read, build) : build(read);
       tables.set(dataModel, found);
     }
     return found;

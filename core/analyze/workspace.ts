@@ -8,6 +8,7 @@ import { isTooLarge } from '../size';
 import { analyzeBlock, type BlockContext } from './block';
 import type { AnalyzeOptions } from './context';
 import { AnalysisCache, type CacheStats } from './cache';
+import { ConstantTableCache } from './tables';
 import { prepareDocument, tooLargeAnalysis, type PreparedDocument } from './document';
 import { buildGraph, type GraphBlock } from './graph';
 import { lookupResult, type BlockOutput, type ReferenceSource } from './references';
@@ -136,6 +137,8 @@ export class WorkspaceAnalyzer {
   private readonly docs = new Map<string, TextDocumentLike>();
   private readonly caches = new Map<string, AnalysisCache>();
   private readonly prepared = new Map<string, { text: string; optionsKey: string; prepared: PreparedDocument; dependencies: string[] }>();
+  /** Firmware constant tables per document, kept while only its comments (timing blocks) change. */
+  private readonly tables = new Map<string, ConstantTableCache>();
   private last = new Map<string, DocumentAnalysis>();
 
   /** Adds or replaces a document (the caller decides whether the open buffer or the file on disk counts). */
@@ -146,6 +149,7 @@ export class WorkspaceAnalyzer {
   delete(uri: string): void {
     this.docs.delete(uri);
     this.caches.delete(uri);
+    this.tables.delete(uri);
     this.prepared.delete(uri);
     this.last.delete(uri);
   }
@@ -179,7 +183,9 @@ export class WorkspaceAnalyzer {
         const optionsKey = JSON.stringify([options.defaultTolerance, options.defaultSeries, options.dataModel, options.includeDirs, options.workspaceRoots, options.maxFileBytes]);
         const known = this.prepared.get(doc.uri);
         if (known && known.text === doc.text && known.optionsKey === optionsKey) return known.prepared;
-        const prepared = prepareDocument(doc, options);
+        let tables = this.tables.get(doc.uri);
+        if (!tables) this.tables.set(doc.uri, (tables = new ConstantTableCache()));
+        const prepared = prepareDocument(doc, { ...options, tables });
         this.prepared.set(doc.uri, { text: doc.text, optionsKey, prepared, dependencies: [] });
         return prepared;
       },
@@ -192,6 +198,12 @@ export class WorkspaceAnalyzer {
     const changed = results.filter((a) => summary(this.last.get(a.uri)) !== summary(a)).map((a) => a.uri);
     this.last = analyses;
     return { analyses, changed };
+  }
+
+  /** How often the document's constant tables were built and kept. */
+  tableCounts(uri: string): { built: number; reused: number } | undefined {
+    const tables = this.tables.get(uri);
+    return tables && { ...tables.counts };
   }
 
   /** Blocks of the document in the last pass, and how many were analysed afresh. */

@@ -6,9 +6,14 @@ import * as path from 'node:path';
 import { median, ms, type Row } from './measure';
 
 const root = path.resolve(__dirname, '..', '..');
-/** What the installed extension loads: the activation path first, the lazily loaded core, the panel script. */
+/**
+ * What the installed extension loads: the activation path first, the language client library (just after
+ * activation), the panel script. The preview's in-process core and the server (its own process) are counted apart.
+ */
 const activationPath = 'out/extension.js';
-const editorBundles = [activationPath, 'out/engine.js', 'media/dist/panel.js'];
+const editorBundles = [activationPath, 'out/client.js', 'media/dist/panel.js'];
+const previewCore = 'out/engine.js';
+const serverBundle = 'out/server.js';
 const kB = (bytes: number) => `${(bytes / 1024).toFixed(0)} kB`;
 
 interface ActivationRecord {
@@ -25,12 +30,15 @@ export function bundle(): Row[] {
   const rows: Row[] = [];
   try {
     execFileSync(process.execPath, [path.join(root, 'scripts', 'build.mjs'), '--release'], { cwd: root, stdio: 'pipe' });
-    const sizes = editorBundles.map((file) => [file, fs.existsSync(path.join(root, file)) ? fs.statSync(path.join(root, file)).size : 0] as const);
+    const size = (file: string) => (fs.existsSync(path.join(root, file)) ? fs.statSync(path.join(root, file)).size : 0);
+    const sizes = editorBundles.map((file) => [file, size(file)] as const);
     const total = sizes.reduce((sum, [, bytes]) => sum + bytes, 0);
     const first = sizes[0][1];
     rows.push(
       { figure: '6a bundles the editor loads (release), total', value: kB(total), target: '< 500 kB', met: total < 500 * 1024, note: sizes.map(([f, b]) => `${path.basename(f)} ${kB(b)}`).join(', ') },
-      { figure: `6b   activation path ${activationPath}`, value: kB(first), target: '< 500 kB', met: first < 500 * 1024, note: 'the core (out/engine.js) loads on the first analysis' },
+      { figure: `6b   activation path ${activationPath}`, value: kB(first), target: '< 500 kB', met: first < 500 * 1024, note: 'the language client (out/client.js) loads on the next turn after activation' },
+      { figure: '6b   with the preview\'s in-process core', value: kB(total + size(previewCore)), target: '< 500 kB', met: total + size(previewCore) < 500 * 1024, note: `${path.basename(previewCore)} ${kB(size(previewCore))}, loaded when a Markdown preview renders a timing fence or the panel opens` },
+      { figure: '6b   the language server (its own process)', value: kB(size(serverBundle)), target: '—', met: true, note: `${serverBundle}: the core, vscode-languageserver and the server; not loaded by the editor host` },
       activationOutsideHost(),
       ...activationInHost(),
     );

@@ -1,7 +1,7 @@
 // Figure 7: re-analysis through the Language Server Protocol, timed from the client's side: an edit sent as
 // didChange until the publishDiagnostics for that version arrives. A C file that includes about 3.5 MB of
 // generated device headers, and the 5k-line note of figure 2; each beside its cold first analysis.
-import { spawn, type ChildProcess } from 'node:child_process';
+import { execFileSync, spawn, type ChildProcess } from 'node:child_process';
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
@@ -9,6 +9,7 @@ import { pathToFileURL } from 'node:url';
 import {
   createProtocolConnection, StreamMessageReader, StreamMessageWriter, type ProtocolConnection, type PublishDiagnosticsParams,
 } from 'vscode-languageserver-protocol/node';
+import { cacheStatsRequest, type CacheStatsAnswer } from '../../server/protocol';
 import { generateNote } from './generate';
 import { median, ms, type Row } from './measure';
 
@@ -109,7 +110,9 @@ async function timeEdits(session: Session, uri: string, languageId: string, text
   const opened = session.published(uri, version);
   connection.sendNotification('textDocument/didOpen', { textDocument: { uri, languageId, version, text } });
   const cold = (await opened) - start;
-  const results: Record<string, number> = {};
+  const results: Record<string, { median: number; server: number }> = {};
+  const inServer: number[] = [];
+  let tables: { built: number; reused: number } | undefined;
   for (const [label, offsetOf] of Object.entries(edits)) {
     const times: number[] = [];
     for (let i = 0; i < runs + 1; i++) {
@@ -127,11 +130,17 @@ async function timeEdits(session: Session, uri: string, languageId: string, text
       });
       const at = await done;
       // The first edit of each kind warms the path; it is not counted.
-      if (i > 0) times.push(at - before);
+      if (i > 0) {
+        times.push(at - before);
+        const stats = await connection.sendRequest<CacheStatsAnswer>(cacheStatsRequest, { uri });
+        inServer.push(stats?.analysisMs ?? NaN);
+        if (stats?.tables) tables = stats.tables;
+      }
     }
-    results[label] = median(times);
+    results[label] = { median: median(times), server: median(inServer) };
+    inServer.length = 0;
   }
-  return { cold, results };
+  return { cold, results, tables };
 }
 
 function positionAt(text: string, offset: number): { line: number; character: number } {
@@ -145,6 +154,9 @@ function positionAt(text: string, offset: number): { line: number; character: nu
 }
 
 export async function protocolEdits(): Promise<Row[]> {
+  if (!fs.existsSync(path.join(root, 'out', 'server.js'))) {
+    execFileSync(process.execPath, [path.join(root, 'scripts', 'build.mjs')], { cwd: root, stdio: 'pipe' });
+  }
   const workspace = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-bench-lsp-'));
   try {
     const headers = generateDeviceHeaders(3.5e6);
@@ -170,13 +182,15 @@ export async function protocolEdits(): Promise<Row[]> {
         inside: (i, text) => text.indexOf('r: ', text.indexOf(`stage-${(i * 37) % 100}\n`)) + 3,
       }, runs);
       const size = `${(headerBytes / 1e6).toFixed(2)} MB of headers`;
+      const row = (figure: string, r: { median: number; server: number }, target: number) =>
+        ({ figure, value: ms(r.median), target: `< ${target} ms`, met: r.median < target, note: `median of ${runs}; analysis in the server ${ms(r.server)}, the rest is the protocol round trip` });
       return [
-        { figure: `7a LSP: C file + ${size}, cold analysis`, value: ms(c.cold), target: '—', met: true, note: 'didOpen to its publishDiagnostics' },
-        { figure: '7b   edit outside any block, to the publish', value: ms(c.results.outside), target: '< 50 ms', met: c.results.outside < 50, note: `median of ${runs}` },
-        { figure: '7c   edit inside a block, to the publish', value: ms(c.results.inside), target: '< 50 ms', met: c.results.inside < 50, note: `median of ${runs}` },
-        { figure: '7d LSP: 5k-line note, 100 blocks, cold analysis', value: ms(note.cold), target: '—', met: true, note: 'didOpen to its publishDiagnostics' },
-        { figure: '7e   edit outside any block, to the publish', value: ms(note.results.outside), target: '< 16 ms', met: note.results.outside < 16, note: `median of ${runs}` },
-        { figure: '7f   edit inside a block, to the publish', value: ms(note.results.inside), target: '< 16 ms', met: note.results.inside < 16, note: `median of ${runs}` },
+        { figure: `7a LSP: C file including ${size}, cold analysis`, value: ms(c.cold), target: '—', met: true, note: 'didOpen to its publishDiagnostics' },
+        row('7b   edit in code outside any block, to the publish', c.results.outside, 50),
+        row('7c   edit inside a block, to the publish', c.results.inside, 50),
+        { figure: '7d LSP: 5k-line note, 100 blocks, cold analysis', value: ms(note.cold), target: '—', met: true, note: `didOpen to its publishDiagnostics; C constant tables built ${c.tables?.built ?? '?'}×, kept ${c.tables?.reused ?? '?'}× over the C edits` },
+        row('7e   edit outside any block, to the publish', note.results.outside, 16),
+        row('7f   edit inside a block, to the publish', note.results.inside, 16),
       ];
     } finally {
       await session.stop();

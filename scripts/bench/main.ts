@@ -2,6 +2,7 @@
 import { machine, printRows, type Row } from './measure';
 import { bundle } from './activation';
 import { firmwareScan, monteCarlo, noteRescore, pllSearch, spiceRatio, timerSearch } from './cases';
+import { protocolEdits } from './lsp';
 
 export async function runBench(out: (line: string) => void): Promise<number> {
   out(`Tickmark bench — ${machine()}`);
@@ -14,6 +15,7 @@ export async function runBench(out: (line: string) => void): Promise<number> {
     ['4', spiceRatio],
     ['5', monteCarlo],
     ['6', bundle],
+    ['7', protocolEdits],
   ];
   for (const [label, step] of steps) {
     try {
