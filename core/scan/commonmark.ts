@@ -227,17 +227,33 @@ export function walkFences(text: string, visitor: FenceVisitor): void {
     leaf = Leaf.None;
   };
 
+  // Most notes hold no carriage return: then the native search finds each line's end.
+  const carriageReturns = text.indexOf('\r') >= 0;
   let pos = text.charCodeAt(0) === 0xfeff ? 1 : 0;
   while (pos < text.length) {
     // One line: CommonMark §2.1 ends it at \n, \r\n or \r.
     const start = pos;
-    let end = start;
-    while (end < text.length) {
-      const ch = text.charCodeAt(end);
-      if (ch === 10 || ch === 13) break;
-      end++;
+    let end: number;
+    if (carriageReturns) {
+      end = start;
+      while (end < text.length) {
+        const ch = text.charCodeAt(end);
+        if (ch === 10 || ch === 13) break;
+        end++;
+      }
+    } else {
+      end = text.indexOf('\n', start);
+      if (end < 0) end = text.length;
     }
     pos = end >= text.length ? end : text.charCodeAt(end) === 13 && text.charCodeAt(end + 1) === 10 ? end + 2 : end + 1;
+    // The common case in a note: a line of prose outside any container, which opens or continues a paragraph.
+    if (containers.length === 0 && (leaf === Leaf.None || leaf === Leaf.Paragraph) && start < end) {
+      const first = text.charCodeAt(start);
+      if (first !== SPACE && first !== TAB && !maybeSpecial(first)) {
+        leaf = Leaf.Paragraph;
+        continue;
+      }
+    }
     cursor.reset(text, start, end);
 
     // 1. Which open containers the line continues.
