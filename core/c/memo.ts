@@ -2,6 +2,7 @@
 // its findings) is replayed instead of read again when its text, the headers it reached and every outside name
 // it consulted are as they were. A keystroke in a C file therefore re-reads none of its unchanged headers.
 import type { Finding } from '../types';
+import { BUILTIN_URI_PREFIX } from './builtins';
 import type { MacroDef } from './macros';
 import { sameDeclaration, sameMacro, sameTypedef, type Binding, type Declaration, type TypedefDef } from './scope';
 
@@ -47,7 +48,8 @@ export interface MemoLookups {
 export function findEffect(memo: HeaderMemo, uri: string, text: string, context: string, here: MemoLookups): HeaderEffect | undefined {
   for (const e of memo.get(uri) ?? []) {
     if (e.context !== context || e.text !== text) continue;
-    if (!e.files.every(([file, was]) => file === uri || here.read(file) === was)) continue;
+    // Built-in headers depend on the data model alone, which the context holds.
+    if (!e.files.every(([file, was]) => file === uri || file.startsWith(BUILTIN_URI_PREFIX) || here.read(file) === was)) continue;
     let holds = true;
     for (const [name, was] of e.macroReads) if (!sameBinding(here.macro(name), was, sameMacro)) { holds = false; break; }
     if (holds) for (const [name, was] of e.declReads) if (!sameBinding(here.decl(name), was, sameDeclaration)) { holds = false; break; }

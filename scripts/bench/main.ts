@@ -1,6 +1,7 @@
 // Runs every case in order and prints one table; the exit code is 0 even when a target is missed.
 import { machine, printRows, type Row } from './measure';
 import { bundle } from './activation';
+import { headerFigure } from './headers';
 import { firmwareScan, monteCarlo, noteRescore, pllSearch, spiceRatio, timerSearch } from './cases';
 import { protocolEdits } from './lsp';
 
@@ -16,6 +17,7 @@ export async function runBench(out: (line: string) => void): Promise<number> {
     ['5', monteCarlo],
     ['6', bundle],
     ['7', protocolEdits],
+    ['8', headerFigure],
   ];
   for (const [label, step] of steps) {
     try {
