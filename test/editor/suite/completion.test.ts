@@ -25,7 +25,10 @@ export function completionTests(): void {
     it('offers the circuit ids of DESIGN.md after `circuit:` in a note', async () => {
       const items = await labelsAt('markdown', '```timing\ncircuit: |\n```\n');
       // DESIGN.md "Circuits" table.
-      assert.deepEqual(ours(items, vscode.CompletionItemKind.Class).sort(), ['555-astable', '555-monostable', 'baud', 'comparator-rc', 'crystal-load', 'inverter-rc', 'rc-delay', 'ring', 'schmitt-rc', 'timer']);
+      assert.deepEqual(ours(items, vscode.CompletionItemKind.Class).sort(), [
+        '555-astable', '555-monostable', 'adc-sample', 'baud', 'can-bit', 'clock', 'comparator-rc', 'crystal-load', 'divider',
+        'i2c-rise', 'inverter-rc', 'pll', 'rc-delay', 'ring', 'schmitt-rc', 'timer', 'watchdog',
+      ]);
       const led = items.find((i) => labelOf(i) === 'schmitt-rc');
       assert.match(String((led?.documentation as vscode.MarkdownString | undefined)?.value), /Schmitt trigger/);
     });

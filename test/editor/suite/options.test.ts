@@ -12,7 +12,11 @@ export function optionsTests(): void {
     it('counts an unsaved buffer in UTF-8 bytes and refuses it above the limit', async () => {
       const uri = await demoUri('firmware/include/board.h');
       const doc = await vscode.workspace.openTextDocument(uri);
-      const read = (kB: number) => analyzeOptionsFor(uri, { ...readSettings(uri), maxSizeKB: kB }).read(uri.fsPath);
+      // Headers have their own limit (tickmark.c.maxHeaderSizeKB, DESIGN.md); both are set so either would refuse.
+      const read = (kB: number) => {
+        const settings = readSettings(uri);
+        return analyzeOptionsFor(uri, { ...settings, maxSizeKB: kB, firmware: { ...settings.firmware, maxHeaderSizeKB: kB } }).read(uri.fsPath);
+      };
       // board.h is plain ASCII, so its bytes are its characters; the check needs it above 1 KB (1024 bytes).
       assert.ok(doc.getText().length > 1024, 'board.h shrank: pick a larger header');
       try {
