@@ -57,8 +57,8 @@ export const canBit: CircuitModel = {
   params: [
     quantity('clock', 'CAN controller clock', 'Hz', 'Clock into the bit-rate prescaler, with its tolerance (`16 MHz ±50 ppm`).'),
     quantity('prescaler', 'bit-rate prescaler', '', 'Division ratio from the clock to one time quantum.', { integer: true, min: 1, solvable: true }),
-    quantity('prop-seg', 'propagation segment', '', 'Propagation segment, time quanta.', { integer: true, min: 1, optional: true, solvable: true }),
-    quantity('phase-seg1', 'phase segment 1', '', 'Phase buffer segment 1 (before the sample point), time quanta.', { integer: true, min: 1, optional: true, solvable: true }),
+    quantity('prop-seg', 'propagation segment', '', 'Propagation segment, time quanta.', { integer: true, min: 1, optional: true, solvable: true, template: true }),
+    quantity('phase-seg1', 'phase segment 1', '', 'Phase buffer segment 1 (before the sample point), time quanta.', { integer: true, min: 1, optional: true, solvable: true, template: true }),
     quantity('phase-seg2', 'phase segment 2', '', 'Phase buffer segment 2 (after the sample point), time quanta.', { integer: true, min: 1, solvable: true }),
     quantity('tseg1', 'time segment 1 (prop-seg + phase-seg1)', '', 'prop-seg + phase-seg1 as one number, as many controllers\' registers hold it.', { integer: true, min: 2, optional: true, solvable: true }),
     quantity('sjw', 'synchronisation jump width', '', 'Resynchronisation jump width, time quanta.', { default: 1, defaultText: '1', integer: true, min: 1 }),

@@ -4,7 +4,7 @@ import { Code } from '../codes';
 export { finiteOnly } from '../num';
 import type { ModelInput, ModelIssue, QuantityParam, ResultSpec } from './model';
 
-type Defaults = Pick<QuantityParam, 'default' | 'defaultText' | 'solvable' | 'min' | 'max' | 'integer' | 'register' | 'optional'>;
+type Defaults = Pick<QuantityParam, 'default' | 'defaultText' | 'solvable' | 'min' | 'max' | 'integer' | 'register' | 'optional' | 'template'>;
 
 export function quantity(key: string, label: string, dim: QuantityParam['dim'], description: string, more: Defaults = {}): QuantityParam {
   return { kind: 'quantity', key, label, dim, description, ...more };

@@ -24,6 +24,8 @@ export interface QuantityParam {
   register?: boolean;
   /** May be left out without a default: the model then runs without it (timer `compare`, baud `divisor`). */
   optional?: boolean;
+  /** Written in a new block's template although optional (can-bit's prop-seg and phase-seg1, the alternative to tseg1). */
+  template?: boolean;
   description: string;
 }
 

@@ -37,7 +37,7 @@ export const pll: CircuitModel = {
   params: [
     quantity('ref', 'reference clock', 'Hz', 'Clock into the reference divider; write its tolerance after it.'),
     quantity('prediv', 'reference divider', '', 'Division ratio before the phase-frequency detector.', { default: 1, defaultText: '1', integer: true, min: 1, solvable: true }),
-    quantity('mult', 'feedback multiplier', '', 'Multiplication ratio of the feedback divider (may be fractional for a fractional-N PLL).', { min: Number.MIN_VALUE, solvable: true }),
+    quantity('mult', 'feedback multiplier', '', 'Multiplication ratio of the feedback divider (may be fractional for a fractional-N PLL).', { min: Number.MIN_VALUE, solvable: true, register: true }),
     quantity('postdiv', 'output divider', '', 'Division ratio from the VCO to the main output.', { default: 1, defaultText: '1', integer: true, min: 1, solvable: true }),
     quantity('postdiv2', 'second output divider', '', 'Division ratio from the VCO to the second output.', { integer: true, min: 1, optional: true, solvable: true }),
     quantity('postdiv3', 'third output divider', '', 'Division ratio from the VCO to the third output.', { integer: true, min: 1, optional: true, solvable: true }),

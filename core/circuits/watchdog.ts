@@ -50,7 +50,7 @@ export const watchdog: CircuitModel = {
     quantity('clock', 'watchdog clock', 'Hz', 'Clock of the watchdog counter, with its tolerance (`32 kHz ±40%`).'),
     quantity('prescaler', 'prescaler division ratio', '', 'Division ratio before the counter.', { default: 1, defaultText: '1', integer: true, min: 1 }),
     quantity('reload', 'reload value', '', 'Value the counter restarts from at each refresh; it counts down to 0.', { integer: true, min: 0 }),
-    quantity('refresh', 'refresh interval', 's', 'Longest interval between two refreshes in the firmware.', { optional: true, min: 0 }),
+    quantity('refresh', 'refresh interval', 's', 'Longest interval between two refreshes in the firmware.', { optional: true, min: 0, template: true }),
     quantity('window', 'window value', '', 'Count below which a refresh is accepted (window watchdog).', { integer: true, min: 0, optional: true }),
   ],
   results: [

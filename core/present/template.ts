@@ -16,7 +16,7 @@ export function blockTemplate(circuitId: string): TemplateLine[] | undefined {
   if (!model) return undefined;
   const lines: TemplateLine[] = [{ key: 'circuit', placeholder: model.id }];
   for (const param of model.params) {
-    if (param.kind !== 'quantity' || param.default !== undefined || param.optional) continue;
+    if (param.kind !== 'quantity' || param.default !== undefined || (param.optional && !param.template)) continue;
     lines.push({ key: param.key, placeholder: unitHint[param.dim] ?? param.label });
   }
   const claim = model.results.find((r) => model.headline[0] === r.key);

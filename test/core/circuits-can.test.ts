@@ -7,6 +7,7 @@ import { withDefaults } from '../../core/circuits/defaults';
 import type { CircuitModel } from '../../core/circuits/model';
 import { searchCanTiming, canDefaultSets } from '../../core/circuits/can-search';
 import { analyzeText, errors, noteBlock } from '../helpers/analyze';
+import { blockTemplate } from '../../core/present/template';
 
 const can = circuitById('can-bit') as CircuitModel;
 const compute = (values: Record<string, number>) => can.compute(withDefaults(can, { values }));
@@ -111,5 +112,12 @@ describe('can-bit fed by a clock block', () => {
     assert.ok(rc.findings.some((f) => f.code === 'clock-tolerance' && /±1 %.*0\.3125 %/.test(f.message)));
     const crystal = analyzeText('notes/can.md', text('±50 ppm')).blocks[1];
     assert.equal(crystal.findings.some((f) => f.code === 'clock-tolerance'), false);
+  });
+});
+
+describe('can-bit template', () => {
+  it('a new block names both segments before the sample point (the model needs them, or tseg1)', () => {
+    assert.deepEqual(blockTemplate('can-bit')!.map((l) => l.key), ['circuit', 'clock', 'prescaler', 'prop-seg', 'phase-seg1', 'phase-seg2', 'expect']);
+    assert.equal(blockTemplate('can-bit')!.at(-1)!.placeholder, 'bit/s');
   });
 });
