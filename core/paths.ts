@@ -57,6 +57,13 @@ export function resolve(...segments: string[]): string {
   return normalize(out || '.');
 }
 
+/** Segments joined with the first one's separator and normalized (`build` + `compile_commands.json`). */
+export function join(...segments: string[]): string {
+  const parts = segments.filter(Boolean);
+  if (!parts.length) return '.';
+  return normalize(parts.join(separatorOf(parts[0])));
+}
+
 export function dirname(p: string): string {
   const root = rootOf(p);
   const rest = p.slice(root.length).replace(/[\\/]+$/, '');

@@ -5,31 +5,17 @@ import { circuitById, circuits } from '../circuits/registry';
 import { isSafetyName, safetyCaution } from '../circuits/common';
 import { compileValue, parseValue } from '../value';
 import { Code } from '../codes';
-import type { AnalyzeOptions, DataModelName, IdentifierSource } from './context';
+import type { BlockContext, DataModelName } from './context';
 import { didYouMean } from './keys';
 import { buildPlan, type Plan } from './plan';
-import { evaluateParams, tolerancedKeys } from './evaluate';
-import { finiteOnly, limitIssues, modelInput, runModel } from './measure';
+import { evaluateParams, ownTolerancedKeys, tolerancedKeys } from './evaluate';
+import { computeAt, finiteOnly, limitIssues, modelInput, runModel } from './measure';
 import { parseClaims } from './claims';
 import { monteCarlo, worstCase } from './spread';
 import { solveUnknowns } from './unknowns';
 import { checkClaims } from './mismatch';
 import { seriesFindings } from './series-check';
-import type { ReferenceSource } from './references';
 import { blockKey } from '../block-keys';
-
-export interface BlockContext {
-  uri: string;
-  /** 1-based line of the header. */
-  line: number;
-  options: AnalyzeOptions;
-  /** Identifier source for a data model and the block's `from:` (already resolved by the document). */
-  source: IdentifierSource;
-  /** Where `@name` references resolve (the workspace pass); none when absent. */
-  references?: ReferenceSource;
-  /** Told the plan once the block's results are computed, so dependants can evaluate it at their offsets. */
-  computed?: (plan: Plan, overrides: Readonly<Record<string, number>>, values: Readonly<Record<string, number>>) => void;
-}
 
 const dataModels = (blockKey('data-model')?.words ?? []).map((w) => w.word as DataModelName);
 
@@ -121,7 +107,10 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     return analysis;
   }
 
-  context.computed?.(plan, overrides, analysis.values);
+  context.computed?.(
+    { model, tolerancedKeys: ownTolerancedKeys(plan), upstreamInputs: plan.upstreamInputs, at: (local, upstream) => computeAt(plan, local, overrides, upstream) },
+    analysis.values,
+  );
   const keys = tolerancedKeys(plan);
   if (keys.length) {
     const spread = worstCase(plan, keys, overrides);

@@ -2,10 +2,8 @@
 // moved by the offset delta when only text above it changed. Kept per document by the editor.
 import type { BlockAnalysis, Finding, RawBlock, Span } from '../types';
 import type { BlockRef } from '../value';
-import { analyzeBlock, type BlockContext } from './block';
-import type { AnalyzeOptions, DataModelName, IdentifierLookup, IdentifierSource } from './context';
-import type { Plan } from './plan';
-import type { ReferenceLookup, ReferenceSource } from './references';
+import { analyzeBlock } from './block';
+import type { AnalyzeOptions, BlockContext, ComputedBlock, DataModelName, IdentifierLookup, IdentifierSource, ReferenceLookup, ReferenceSource } from './context';
 
 interface Entry {
   /** Where the block stood when analysed; spans inside it move with it. */
@@ -16,8 +14,8 @@ interface Entry {
   lookups: Array<{ name: string; dataModel: DataModelName; answer: string; expression?: boolean }>;
   /** Every block reference it resolved, with the upstream block's fingerprint (or the problem) it got. */
   references: Array<{ ref: BlockRef; answer: string }>;
-  /** The plan its results came from, handed to the workspace again when the analysis is reused. */
-  computed?: [Plan, Readonly<Record<string, number>>, Readonly<Record<string, number>>];
+  /** The computed block its results came from, handed to the workspace again when the analysis is reused. */
+  computed?: [ComputedBlock, Readonly<Record<string, number>>];
   generation: number;
 }
 
@@ -76,9 +74,9 @@ export class AnalysisCache {
           return found;
         },
       },
-      computed: (plan, overrides, values) => {
-        computed = [plan, overrides, values];
-        context.computed?.(plan, overrides, values);
+      computed: (block, values) => {
+        computed = [block, values];
+        context.computed?.(block, values);
       },
     });
     this.entries.set(key, { span: raw.span, uri: context.uri, analysis, lookups: recorder.lookups, references, computed, generation: this.generation });

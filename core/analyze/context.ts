@@ -1,5 +1,7 @@
 // What a block needs from outside itself: settings, and where its identifiers come from.
-import type { Finding, ResolvedIdentifier } from '../types';
+import type { Dim, Finding, ResolvedIdentifier } from '../types';
+import type { CircuitModel, ResultSpec } from '../circuits/model';
+import type { BlockRef } from '../value';
 import { Code } from '../codes';
 import type { MacroFlag } from '../c/config';
 import type { FirmwareCache } from './firmware';
@@ -79,3 +81,67 @@ export const noIdentifiers: IdentifierSource = {
   dependencies: () => [],
   findings: () => [],
 };
+
+/** Tolerance offsets: u in [−1, 1] per toleranced key (or upstream input id), +1 at the top of its tolerance. */
+export type Offsets = Readonly<Record<string, number>>;
+
+/**
+ * A toleranced input somewhere up the chain (a crystal's `frequency ±20 ppm`). Its id is the same in every
+ * block that reaches it, so two references that share a source move together in the worst case and in
+ * Monte Carlo: shared sources stay correlated, independent ones vary independently.
+ */
+export interface UpstreamInput {
+  id: string;
+  /** `@xtal.frequency`, for shares in the hover. */
+  label: string;
+}
+
+/** What an analysed block offers the blocks that reference it. */
+export interface BlockOutput {
+  uri: string;
+  name: string;
+  /** 1-based line of the block's header. */
+  line: number;
+  circuit: string;
+  /** Nominal results, as the block's analysis reports them. */
+  values: Readonly<Record<string, number>>;
+  results: readonly ResultSpec[];
+  /** Toleranced inputs, its own and those upstream of it, that move its results. */
+  inputs: readonly UpstreamInput[];
+  /** Results with the inputs at the given offsets (keyed by input id, absent = nominal); undefined when they break the model. */
+  at(offsets: Offsets): Readonly<Record<string, number>> | undefined;
+  /** Changes whenever anything its results depend on changes: caches of dependants compare it. */
+  fingerprint: string;
+}
+
+export type ReferenceLookup = { ok: true; output: BlockOutput; result: string; dim: Dim } | { ok: false; code: string; message: string };
+
+/** Where a block's `@name` references resolve from. */
+export interface ReferenceSource {
+  resolve(ref: BlockRef): ReferenceLookup;
+}
+
+/** A block whose results are computed, as the workspace pass hands it to the blocks that reference it. */
+export interface ComputedBlock {
+  model: CircuitModel;
+  /** Its own keys with a tolerance. */
+  tolerancedKeys: readonly string[];
+  /** Toleranced inputs upstream of its own references. */
+  upstreamInputs: readonly UpstreamInput[];
+  /** Its results with its own keys at `local` offsets and its references' inputs at `upstream` ones. */
+  at(local: Offsets, upstream: Offsets): Record<string, number> | undefined;
+}
+
+/** Everything one block's analysis needs from outside the block. */
+export interface BlockContext {
+  uri: string;
+  /** 1-based line of the header. */
+  line: number;
+  options: AnalyzeOptions;
+  /** Identifier source for a data model and the block's `firmware:` (already resolved by the document). */
+  source: IdentifierSource;
+  /** Where `@name` references resolve (the workspace pass); none when absent. */
+  references?: ReferenceSource;
+  /** Told once the block's results are computed, so dependants can evaluate it at their offsets. */
+  computed?: (block: ComputedBlock, values: Readonly<Record<string, number>>) => void;
+}

@@ -5,7 +5,7 @@ import type { BlockAnalysis, DocumentAnalysis, Finding, RawBlock, TextDocumentLi
 import { Code } from '../codes';
 import { hostOf, scanDocument } from '../scan';
 import { LineCounter } from '../scan/lines';
-import type { BlockContext } from './block';
+import type { BlockContext } from './context';
 import { noIdentifiers, type AnalyzeOptions, type IdentifierSource } from './context';
 import { cFileSource, fromFileSource } from './sources';
 import { firmwareEntry } from './keys';

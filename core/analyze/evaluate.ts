@@ -1,40 +1,25 @@
 // Replaying a plan: every quantity key evaluated in plan order, with tolerance offsets and overrides. This runs
 // for every corner, Monte Carlo sample and solver step, so the plan's steps are resolved once.
 import type { Tolerance } from '../types';
-import type { QuantityParam } from '../circuits/model';
-import { modelKeys, type Plan, type Slot } from './plan';
-
-/** Tolerance offsets: u in [−1, 1] per toleranced key, +1 at the top of its tolerance, −1 at the bottom. */
-export type Offsets = Readonly<Record<string, number>>;
+import type { Offsets } from './context';
+import type { Plan } from './plan';
 
 function applyTolerance(value: number, tolerance: Tolerance, u: number): number {
   const amount = u >= 0 ? u * tolerance.plus : u * tolerance.minus;
   return tolerance.kind === 'relative' ? value * (1 + amount) : value + amount;
 }
 
-interface Step {
-  key: string;
-  slot?: Slot;
-  spec?: QuantityParam;
-}
+/**
+ * Block references by the names they are written with, one scratch table per plan shared by every replay: each
+ * slot writes its own references before it reads them, and firmware names are compiled into the slots. Kept
+ * beside the plan, not on it: a plan is complete and immutable once built.
+ */
+const envs = new WeakMap<Plan, Record<string, number>>();
 
-export interface Replay {
-  steps: Step[];
-  /**
-   * Block references by the names they are written with, shared by every replay: each slot writes its own
-   * references before it reads them, and firmware names are compiled into the slots.
-   */
-  env: Record<string, number>;
-}
-
-/** The plan's keys resolved to their slot or default once: evaluateParams runs per Monte Carlo sample. */
-function replayOf(plan: Plan): Replay {
-  if (!plan.replay) {
-    const specs = modelKeys(plan.model).quantities;
-    const steps = plan.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) }));
-    plan.replay = { steps, env: Object.create(null) };
-  }
-  return plan.replay;
+function envOf(plan: Plan): Record<string, number> {
+  let env = envs.get(plan);
+  if (!env) envs.set(plan, (env = Object.create(null) as Record<string, number>));
+  return env;
 }
 
 /**
@@ -66,9 +51,8 @@ export function upstreamEpoch(): number {
 export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readonly<Record<string, number>>, upstream: Offsets | undefined = offsets): Record<string, number> {
   if (nesting.depth === 0) nesting.epoch++;
   const values: Record<string, number> = {};
-  const replay = replayOf(plan);
-  const env = replay.env;
-  for (const { key, slot, spec } of replay.steps) {
+  const env = envOf(plan);
+  for (const { key, slot, spec } of plan.steps) {
     let value: number;
     if (overrides && key in overrides) value = overrides[key];
     else if (slot) {

@@ -1,9 +1,9 @@
 // What firmware reading shares between documents and passes: files read once per version, the compile
 // database, and each file's build configuration (its own entry, or that of a translation unit including it).
-import * as path from 'node:path';
+import * as path from '../paths';
 import type { BuildConfig, CompileDatabase, MacroFlag } from '../c/config';
 import { parseCompileDatabase } from '../c/config';
-import { isInside } from '../c/include';
+import { isInside } from '../paths';
 import type { HeaderMemo } from '../c/memo';
 import type { AnalyzeOptions } from './context';
 
@@ -126,7 +126,7 @@ function macroOrigin(options: AnalyzeOptions): string {
 function shortPath(file: string, roots: string[]): string {
   for (const root of roots) {
     const relative = path.relative(root, file);
-    if (relative && !relative.startsWith('..') && !path.isAbsolute(relative)) return relative.split(path.sep).join('/');
+    if (relative && !relative.startsWith('..') && !path.isAbsolute(relative)) return relative;
   }
   return file;
 }

@@ -5,7 +5,8 @@ import type { Plan } from './plan';
 import { finiteOnly } from '../num';
 import { Code } from '../codes';
 export { finiteOnly };
-import { evaluateParams, tolerancedKeys, type Offsets } from './evaluate';
+import { evaluateParams, tolerancedKeys } from './evaluate';
+import type { Offsets } from './context';
 
 /** The model's input; `nominal` adds each toleranced input's relative band (spread corners move the inputs instead). */
 export function modelInput(plan: Plan, values: Readonly<Record<string, number>>, nominal = false, overrides?: Readonly<Record<string, number>>): ModelInput {

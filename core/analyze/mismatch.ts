@@ -4,7 +4,7 @@ import type { BlockAnalysis, Fix, Finding } from '../types';
 import { isSearchFailure } from '../circuits/model';
 import { Code } from '../codes';
 import { formatResult, formatSignedPercent } from '../format';
-import type { BlockContext } from './block';
+import type { BlockContext } from './context';
 import { meetsClaim, type Claim } from './claims';
 import { computeAt, modelInput } from './measure';
 import type { Plan, Slot } from './plan';

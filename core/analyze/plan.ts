@@ -7,7 +7,7 @@ import { Code } from '../codes';
 import type { DataModelName, IdentifierLookup, IdentifierSource } from './context';
 import { didYouMean, isMetaEntry, metaKeys } from './keys';
 import { describeDim, toleranceMismatch } from './dims';
-import type { Replay } from './evaluate';
+import { modelKeys } from './model-keys';
 import { evaluationOrder } from './order';
 import { noReferences, type BlockOutput, type ReferenceSource, type UpstreamInput } from './references';
 import { registerValue } from './registers';
@@ -54,8 +54,15 @@ export interface Plan {
   references: BlockReference[];
   /** Toleranced inputs upstream of the references, each once. */
   upstreamInputs: UpstreamInput[];
-  /** Steps of evaluateParams, resolved on its first call. */
-  replay?: Replay;
+  /** The keys in `order`, each resolved to its slot or its default's spec: what evaluateParams replays. */
+  steps: readonly Step[];
+}
+
+/** One key of the evaluation order: its given value (slot) or, without one, its spec for the default. */
+export interface Step {
+  key: string;
+  slot?: Slot;
+  spec?: QuantityParam;
 }
 
 function identifiersOf(node: ValueNode, out: Array<{ name: string; span: Span; ref?: BlockRef }> = []): Array<{ name: string; span: Span; ref?: BlockRef }> {
@@ -74,30 +81,8 @@ function identifiersOf(node: ValueNode, out: Array<{ name: string; span: Span; r
   return out;
 }
 
-export function error(code: string, message: string, span: Span): Finding {
+function error(code: string, message: string, span: Span): Finding {
   return { severity: 'error', code, message, span };
-}
-
-interface ModelKeys {
-  /** Every parameter by key (the first, should a table repeat one). */
-  params: Map<string, CircuitModel['params'][number]>;
-  quantities: Map<string, QuantityParam>;
-  quantityList: QuantityParam[];
-}
-
-const keysByModel = new WeakMap<CircuitModel, ModelKeys>();
-
-/** A model's parameter table by key, built once per model: plans are built per block and per edit. */
-export function modelKeys(model: CircuitModel): ModelKeys {
-  let keys = keysByModel.get(model);
-  if (!keys) {
-    const params = new Map<string, CircuitModel['params'][number]>();
-    for (const p of model.params) if (!params.has(p.key)) params.set(p.key, p);
-    const quantityList = model.params.filter((p): p is QuantityParam => p.kind === 'quantity');
-    keys = { params, quantities: new Map(quantityList.map((p) => [p.key, p])), quantityList };
-    keysByModel.set(model, keys);
-  }
-  return keys;
 }
 
 /**
@@ -128,6 +113,7 @@ export function buildPlan(
     identifiers: [],
     references: [],
     upstreamInputs: [],
+    steps: [],
   };
   const quantityKeys = keys.quantities;
 
@@ -197,8 +183,11 @@ export function buildPlan(
   for (const spec of model.params) {
     if (spec.kind === 'choice' && !(spec.key in plan.choices)) plan.choices[spec.key] = spec.default;
   }
-  plan.order = evaluationOrder(plan, raw);
-  return plan;
+  const ordered = evaluationOrder(plan, raw);
+  plan.findings.push(...ordered.findings);
+  const specs = keys.quantities;
+  // Complete once built: the evaluation reads the plan and never writes to it (core/analyze/evaluate.ts).
+  return Object.freeze({ ...plan, order: ordered.order, steps: ordered.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) })) });
 }
 
 function compileSlot(

@@ -4,43 +4,8 @@ import type { Dim } from '../types';
 import type { ResultSpec } from '../circuits/model';
 import type { BlockRef } from '../value';
 import { Code } from '../codes';
-import type { Offsets } from './evaluate';
-
-/**
- * A toleranced input somewhere up the chain (a crystal's `frequency ±20 ppm`). Its id is the same in every
- * block that reaches it, so two references that share a source move together in the worst case and in
- * Monte Carlo: shared sources stay correlated, independent ones vary independently.
- */
-export interface UpstreamInput {
-  id: string;
-  /** `@xtal.frequency`, for shares in the hover. */
-  label: string;
-}
-
-/** What an analysed block offers the blocks that reference it. */
-export interface BlockOutput {
-  uri: string;
-  name: string;
-  /** 1-based line of the block's header. */
-  line: number;
-  circuit: string;
-  /** Nominal results, as the block's analysis reports them. */
-  values: Readonly<Record<string, number>>;
-  results: readonly ResultSpec[];
-  /** Toleranced inputs, its own and those upstream of it, that move its results. */
-  inputs: readonly UpstreamInput[];
-  /** Results with the inputs at the given offsets (keyed by input id, absent = nominal); undefined when they break the model. */
-  at(offsets: Offsets): Readonly<Record<string, number>> | undefined;
-  /** Changes whenever anything its results depend on changes: caches of dependants compare it. */
-  fingerprint: string;
-}
-
-export type ReferenceLookup = { ok: true; output: BlockOutput; result: string; dim: Dim } | { ok: false; code: string; message: string };
-
-/** Where a block's `@name` references resolve from. */
-export interface ReferenceSource {
-  resolve(ref: BlockRef): ReferenceLookup;
-}
+import type { BlockOutput, ReferenceLookup, ReferenceSource } from './context';
+export type { BlockOutput, ReferenceLookup, ReferenceSource, UpstreamInput } from './context';
 
 export const noReferences: ReferenceSource = {
   resolve: (ref) => ({ ok: false, code: Code.referenceUnknown, message: `\`@${ref.block}\`: no block of that name is known here` }),

@@ -1,5 +1,6 @@
 // Firmware constants as identifier sources: the C file a block sits in, or the file a note's `from:` names.
-import * as path from 'node:path';
+import * as path from '../paths';
+import { isInside } from '../paths';
 import type { Finding } from '../types';
 import { Code } from '../codes';
 import { isTooLarge } from '../size';
@@ -71,13 +72,4 @@ export function fromFileSource(notePath: string, spelled: string, options: Analy
   if (text === undefined) return { problem: `cannot read \`${spelled}\` (looked for ${target})` };
   if (isTooLarge(text, options.maxFileBytes)) return { problem: `\`${spelled}\` is larger than the size limit (${Math.round(options.maxFileBytes / 1024)} KB)` };
   return { source: cFileSource(target, text, options) };
-}
-
-export function isInside(file: string, root: string): boolean {
-  const relative = path.relative(path.resolve(root), path.resolve(file));
-  return relative === '' || (!relative.startsWith('..') && !path.isAbsolute(relative));
-}
-
-export function sourceFindings(source: IdentifierSource, uri: string): Finding[] {
-  return source.findings().filter((f) => !f.uri || f.uri === uri);
 }

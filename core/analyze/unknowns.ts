@@ -4,7 +4,7 @@ import type { QuantityParam } from '../circuits/model';
 import { isSearchFailure } from '../circuits/model';
 import { Code } from '../codes';
 import { formatQuantity, formatSignedPercent } from '../format';
-import type { BlockContext } from './block';
+import type { BlockContext } from './context';
 import { meetsClaim, parseClaims, type Claim } from './claims';
 import { computeAt, modelInput } from './measure';
 import type { Plan, Unknown } from './plan';

@@ -1,20 +1,17 @@
 // The workspace pass: every document's blocks analysed in reference order, so `@name.result` reads a block that
 // is already computed, in the same file first, then anywhere in the workspace (the CLI's PATHs, the editor's
 // folders). A block's output carries its toleranced inputs up the chain, so a crystal's ppm reaches the UART.
-import * as path from 'node:path';
+import { basename, relative } from '../paths';
 import type { BlockAnalysis, DocumentAnalysis, TextDocumentLike } from '../types';
-import { circuitById } from '../circuits/registry';
 import { isTooLarge } from '../size';
-import { analyzeBlock, type BlockContext } from './block';
-import type { AnalyzeOptions } from './context';
+import { analyzeBlock } from './block';
+import type { AnalyzeOptions, BlockContext, BlockOutput, ComputedBlock, Offsets, ReferenceSource } from './context';
 import { AnalysisCache, type CacheStats } from './cache';
 import { ConstantTableCache } from './tables';
 import { prepareDocument, tooLargeAnalysis, type PreparedDocument } from './document';
 import { buildGraph, type GraphBlock } from './graph';
-import { lookupResult, type BlockOutput, type ReferenceSource } from './references';
-import { computeAt } from './measure';
-import { nested, ownTolerancedKeys, upstreamEpoch, type Offsets } from './evaluate';
-import type { Plan } from './plan';
+import { lookupResult } from './references';
+import { nested, upstreamEpoch } from './evaluate';
 
 /** Analyses documents together; `cacheFor` gives a document's cache (the editor keeps one per open document). */
 export function analyzeWorkspace(
@@ -65,8 +62,8 @@ export function analyzeWorkspace(
       const context: BlockContext = {
         ...item.context,
         references,
-        computed: (plan, overrides, values) => {
-          if (item.raw.name !== undefined) outputs[v] = outputOf(plan, overrides, values, item.context, item.raw.name);
+        computed: (computed, values) => {
+          if (item.raw.name !== undefined) outputs[v] = outputOf(computed, values, item.context, item.raw.name);
         },
       };
       const cache = caches.get(doc);
@@ -86,28 +83,28 @@ export function analyzeWorkspace(
 
 function shownPath(uri: string, options: AnalyzeOptions): string {
   const root = options.workspaceRoots[0];
-  if (!root) return path.basename(uri);
-  const relative = path.relative(root, uri);
-  return (relative && !relative.startsWith('..') ? relative : uri).split(path.sep).join('/');
+  if (!root) return basename(uri);
+  const shown = relative(root, uri);
+  return shown && !shown.startsWith('..') ? shown : uri;
 }
 
 /**
  * A computed block as a source for its dependants. Its own toleranced keys become inputs with ids unique in the
  * workspace (file and name), so every dependant varies the same crystal as one input.
  */
-function outputOf(plan: Plan, overrides: Readonly<Record<string, number>>, values: Readonly<Record<string, number>>, context: BlockContext, name: string): BlockOutput {
-  const own = ownTolerancedKeys(plan).map((key) => ({ key, id: `${context.uri}#${name}.${key}`, label: `@${name}.${key}` }));
+function outputOf(block: ComputedBlock, values: Readonly<Record<string, number>>, context: BlockContext, name: string): BlockOutput {
+  const own = block.tolerancedKeys.map((key) => ({ key, id: `${context.uri}#${name}.${key}`, label: `@${name}.${key}` }));
   const inputs = [...own.map(({ id, label }) => ({ id, label }))];
-  for (const input of plan.upstreamInputs) if (!inputs.some((i) => i.id === input.id)) inputs.push(input);
+  for (const input of block.upstreamInputs) if (!inputs.some((i) => i.id === input.id)) inputs.push(input);
   let memoEpoch = -1;
   let memo: Readonly<Record<string, number>> | undefined;
   return {
     uri: context.uri,
     name,
     line: context.line,
-    circuit: plan.model.id,
+    circuit: block.model.id,
     values,
-    results: circuitById(plan.model.id)?.results ?? plan.model.results,
+    results: block.model.results,
     inputs,
     fingerprint: '',
     at(offsets: Offsets) {
@@ -116,7 +113,7 @@ function outputOf(plan: Plan, overrides: Readonly<Record<string, number>>, value
       if (epoch === memoEpoch) return memo;
       const local: Record<string, number> = {};
       for (const { key, id } of own) local[key] = offsets[id] ?? 0;
-      memo = nested(() => computeAt(plan, local, overrides, offsets));
+      memo = nested(() => block.at(local, offsets));
       memoEpoch = epoch;
       return memo;
     },

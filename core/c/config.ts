@@ -1,7 +1,7 @@
 // A file's build configuration: the -D, -U, -I, -iquote, -isystem, -include and -std flags the compiler gets,
 // read from a compile_commands.json entry (the JSON Compilation Database format CMake, Bear and PlatformIO
 // write) and from the command line or settings on top.
-import * as path from 'node:path';
+import * as path from '../paths';
 import type { SearchDirs } from './include';
 
 export type MacroFlag = { kind: 'define'; name: string; value: string } | { kind: 'undef'; name: string };

@@ -1,7 +1,8 @@
 // #include lookup in gcc's order (gcc manual, "Search Path", from memory): `"…"` searches the including file's
 // folder, then -iquote, then -I; `<…>` searches -I, then -isystem. The include settings come last for both.
 // A path is read only inside an allowed root: the workspace, plus the folders the build configuration names.
-import * as path from 'node:path';
+import * as path from '../paths';
+import { isInside } from '../paths';
 
 export interface IncludeEnv {
   /** Include folders from the settings or `--include`, searched for both forms after the build's own. */
@@ -27,11 +28,6 @@ export type IncludeResult =
   | { kind: 'found'; uri: string; text: string }
   | { kind: 'outside'; uri: string }
   | { kind: 'missing'; looked: string[] };
-
-export function isInside(file: string, root: string): boolean {
-  const relative = path.relative(path.resolve(root), path.resolve(file));
-  return relative === '' || (!relative.startsWith('..') && !path.isAbsolute(relative));
-}
 
 export function resolveInclude(fromUri: string, spelled: string, env: IncludeEnv, dirs: SearchDirs = noSearchDirs, angled = false): IncludeResult {
   const roots = [...env.workspaceRoots, ...dirs.extraRoots];

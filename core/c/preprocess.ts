@@ -1,6 +1,6 @@
 // Walks a translation unit: directives (#define, #undef, #include "…", conditionals) and, on live lines,
 // the declaration scanner. Problems become findings with spans into the file they sit in; nothing throws.
-import * as path from 'node:path';
+import * as path from '../paths';
 import { Code } from '../codes';
 import type { Finding, Severity } from '../types';
 import { BUILTIN_URI_PREFIX, builtinHeader, BUILTIN_HEADERS, compilerPredefines } from './builtins';

@@ -2,7 +2,7 @@
 import { strict as assert } from 'assert';
 import * as path from 'node:path';
 import fc from 'fast-check';
-import { basename, dirname, isInside, relative, resolve } from '../../core/paths';
+import { basename, dirname, isInside, join, relative, resolve } from '../../core/paths';
 import { utf8Bytes } from '../../core/size';
 
 const segment = fc.constantFrom('a', 'b', 'src', '..', '.', 'board.h', 'x y', 'é');
@@ -18,6 +18,7 @@ describe('core paths agree with Node', () => {
       assert.equal(dirname(resolve(a)), path.posix.dirname(path.posix.resolve(a)));
       assert.equal(basename(resolve(a)), path.posix.basename(path.posix.resolve(a)));
       assert.equal(relative(a, b), path.posix.relative(a, b));
+      assert.equal(join(a, rel), path.posix.join(a, rel));
       const r = path.posix.relative(path.posix.resolve(b), path.posix.resolve(a));
       assert.equal(isInside(a, b), r === '' || (!r.startsWith('..') && !path.posix.isAbsolute(r)));
     }));
