@@ -2,11 +2,9 @@
 import type { Dim, Finding, ResolvedIdentifier } from '../types';
 import type { CircuitModel, ResultSpec } from '../circuits/model';
 import type { BlockRef } from '../value';
-import { Code } from '../codes';
 import type { MacroFlag } from '../c/config';
 import type { FirmwareCache } from './firmware';
 import type { ConstantTableCache } from './tables';
-import { evaluateWithoutFirmware } from './registers';
 
 export type DataModelName = 'ilp32' | 'lp64' | 'ip16';
 
@@ -74,13 +72,6 @@ export interface IdentifierSource {
   /** Problems found while reading the source (include errors), reported once per document. */
   findings(): Finding[];
 }
-
-export const noIdentifiers: IdentifierSource = {
-  lookup: (name) => ({ ok: false, code: Code.identifierUnknown, message: `\`${name}\` is not a key of this block, and no firmware file is named (add \`firmware: path/to/file.h\`)` }),
-  evaluate: (exprText, dataModel) => evaluateWithoutFirmware(exprText, dataModel),
-  dependencies: () => [],
-  findings: () => [],
-};
 
 /** Tolerance offsets: u in [−1, 1] per toleranced key (or upstream input id), +1 at the top of its tolerance. */
 export type Offsets = Readonly<Record<string, number>>;

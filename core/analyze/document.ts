@@ -6,8 +6,8 @@ import { Code } from '../codes';
 import { hostOf, scanDocument } from '../scan';
 import { LineCounter } from '../scan/lines';
 import type { BlockContext } from './context';
-import { noIdentifiers, type AnalyzeOptions, type IdentifierSource } from './context';
-import { cFileSource, fromFileSource } from './sources';
+import type { AnalyzeOptions, IdentifierSource } from './context';
+import { cFileSource, fromFileSource, noIdentifiers } from './sources';
 import { firmwareEntry } from './keys';
 
 export interface PreparedBlock {

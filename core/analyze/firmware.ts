@@ -5,7 +5,17 @@ import type { BuildConfig, CompileDatabase, MacroFlag } from '../c/config';
 import { parseCompileDatabase } from '../c/config';
 import { isInside } from '../paths';
 import type { HeaderMemo } from '../c/memo';
-import type { AnalyzeOptions } from './context';
+
+/** The settings the build configuration is read with: a part of AnalyzeOptions (core/analyze/context.ts). */
+export interface FirmwareOptions {
+  read: (path: string) => string | undefined;
+  version?: (path: string) => string | undefined;
+  workspaceRoots: string[];
+  compileCommands?: string[];
+  macros?: MacroFlag[];
+  macrosOrigin?: string;
+  trusted?: boolean;
+}
 
 /** Where compile_commands.json is looked for in each workspace folder when none is named. */
 export const DATABASE_PLACES = ['compile_commands.json', path.join('build', 'compile_commands.json')];
@@ -27,7 +37,7 @@ export class FirmwareCache {
   readonly headers: HeaderMemo = new Map();
 
   /** Reads through the cache: a file whose version is unchanged is not read again. */
-  read(uri: string, options: Pick<AnalyzeOptions, 'read' | 'version'>): string | undefined {
+  read(uri: string, options: Pick<FirmwareOptions, 'read' | 'version'>): string | undefined {
     const version = options.version?.(uri);
     const known = this.texts.get(uri);
     if (known && (options.version === undefined || (version !== undefined && known.version === version))) return known.text;
@@ -37,7 +47,7 @@ export class FirmwareCache {
   }
 
   /** The compile databases in effect: those named, else those found at each workspace folder's root or build/. */
-  private loadDatabases(options: AnalyzeOptions): { dbs: CompileDatabase[]; problems: string[] } {
+  private loadDatabases(options: FirmwareOptions): { dbs: CompileDatabase[]; problems: string[] } {
     const named = options.compileCommands ?? [];
     const candidates = named.length ? named : options.workspaceRoots.flatMap((root) => DATABASE_PLACES.map((p) => path.join(root, p)));
     const dbs: CompileDatabase[] = [];
@@ -63,7 +73,7 @@ export class FirmwareCache {
    * The build configuration of `file`: its compile database entry, else the entry of a translation unit that
    * includes it; -D / -U from the command line or settings on top. Undefined when neither applies.
    */
-  configFor(file: string, options: AnalyzeOptions): { config?: BuildConfig; problems: string[] } {
+  configFor(file: string, options: FirmwareOptions): { config?: BuildConfig; problems: string[] } {
     const { dbs, problems } = this.loadDatabases(options);
     let base: BuildConfig | undefined;
     for (const db of dbs) {
@@ -82,7 +92,7 @@ export class FirmwareCache {
   }
 
   /** Header → the configuration of the first translation unit (in database order) whose includes reach it. */
-  private includerConfig(file: string, dbs: CompileDatabase[], options: AnalyzeOptions): BuildConfig | undefined {
+  private includerConfig(file: string, dbs: CompileDatabase[], options: FirmwareOptions): BuildConfig | undefined {
     const key = dbs.map((db) => [...db.entries.keys()].join('\n')).join('\n\n');
     if (this.includers?.key !== key) {
       const map = new Map<string, BuildConfig>();
@@ -119,7 +129,7 @@ export class FirmwareCache {
   }
 }
 
-function macroOrigin(options: AnalyzeOptions): string {
+function macroOrigin(options: FirmwareOptions): string {
   return options.macrosOrigin ?? '-D / -U';
 }
 

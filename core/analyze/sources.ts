@@ -7,7 +7,7 @@ import { isTooLarge } from '../size';
 import { buildConstantTable, toNumber, type ConstantTable, type DataModel } from '../c';
 import type { AnalyzeOptions, DataModelName, IdentifierLookup, IdentifierSource } from './context';
 import { FirmwareCache } from './firmware';
-import { evaluateIn } from './registers';
+import { evaluateIn, evaluateWithoutFirmware } from './registers';
 
 /** Constants of one C file, built once per data model on first use, with the file's build configuration. */
 export function cFileSource(filePath: string, text: string, options: AnalyzeOptions): IdentifierSource {
@@ -73,3 +73,11 @@ export function fromFileSource(notePath: string, spelled: string, options: Analy
   if (isTooLarge(text, options.maxFileBytes)) return { problem: `\`${spelled}\` is larger than the size limit (${Math.round(options.maxFileBytes / 1024)} KB)` };
   return { source: cFileSource(target, text, options) };
 }
+
+/** A note's block without `firmware:`: names are its own keys only. */
+export const noIdentifiers: IdentifierSource = {
+  lookup: (name) => ({ ok: false, code: Code.identifierUnknown, message: `\`${name}\` is not a key of this block, and no firmware file is named (add \`firmware: path/to/file.h\`)` }),
+  evaluate: (exprText, dataModel) => evaluateWithoutFirmware(exprText, dataModel),
+  dependencies: () => [],
+  findings: () => [],
+};
