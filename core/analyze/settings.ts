@@ -1,6 +1,6 @@
 // The tickmark.c.* settings that say how the firmware is built, read alike by the VS Code extension and the
 // language server from whatever their client hands over, and turned into the core's options in one place.
-import * as path from 'node:path';
+import * as path from '../paths';
 import { parseMacroFlag, type MacroFlag } from '../c/config';
 import type { AnalyzeOptions } from './context';
 
