@@ -1,10 +1,10 @@
-/* UART to the radio module. */
+/* UART to the radio module, on the slow peripheral bus since revision C (notes/clock-tree.md). */
 #include "../include/board.h"
 
 /*
  * @timing radio-uart
  * circuit: baud
- * clock: SYS_CLOCK_HZ
+ * clock: @slow-bus
  * baud: RADIO_BAUD
  * oversampling: UART_OVERSAMPLING
  * divisor: UART_DIVISOR

@@ -3,7 +3,7 @@
 
 /* @timing scheduler-tick
  * circuit: timer
- * clock: SYS_CLOCK_HZ
+ * clock: @fast-bus
  * prescaler: TICK_DIV
  * reload: TICK_TOP
  * expect: 1 kHz ±0.5%

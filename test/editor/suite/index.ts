@@ -15,6 +15,7 @@ import { panelTests } from './panel.test';
 import { panelHtmlTests } from './panelHtml.test';
 import { previewTests } from './preview.test';
 import { rangeTests } from './ranges.test';
+import { referenceTests } from './references.test';
 
 export function run(): Promise<void> {
   // TICKMARK_EDITOR_GREP on the editor host's environment runs only the matching tests (development).
@@ -26,6 +27,7 @@ export function run(): Promise<void> {
   guardTests();
   lensTests();
   hoverTests();
+  referenceTests();
   diagnosticsTests();
   panelTests();
   panelHtmlTests();
