@@ -168,6 +168,7 @@ export class WorkspaceAnalyzer {
   /** Analyses every document; returns the analyses by uri and the uris whose analysis differs from the last pass. */
   analyze(optionsFor: (uri: string) => AnalyzeOptions): { analyses: Map<string, DocumentAnalysis>; changed: string[] } {
     const docs = [...this.docs.values()];
+    const fresh = new Set<string>();
     const results = analyzeWorkspace(
       docs,
       optionsFor,
@@ -183,6 +184,7 @@ export class WorkspaceAnalyzer {
         let tables = this.tables.get(doc.uri);
         if (!tables) this.tables.set(doc.uri, (tables = new ConstantTableCache()));
         const prepared = prepareDocument(doc, { ...options, tables });
+        fresh.add(doc.uri);
         this.prepared.set(doc.uri, { text: doc.text, optionsKey, prepared, dependencies: [] });
         return prepared;
       },
@@ -192,7 +194,11 @@ export class WorkspaceAnalyzer {
       const entry = this.prepared.get(analysis.uri);
       if (entry) entry.dependencies = analysis.dependencies;
     }
-    const changed = results.filter((a) => summary(this.last.get(a.uri)) !== summary(a)).map((a) => a.uri);
+    // A document whose text was prepared before and whose blocks all came from its cache reads as it did.
+    const changed = results
+      .filter((a) => fresh.has(a.uri) || !this.last.has(a.uri) || (this.caches.get(a.uri)?.stats.evaluated ?? 1) > 0 || a.blocks.length === 0)
+      .filter((a) => summary(this.last.get(a.uri)) !== summary(a))
+      .map((a) => a.uri);
     this.last = analyses;
     return { analyses, changed };
   }

@@ -2,7 +2,7 @@
 import { machine, printRows, type Row } from './measure';
 import { bundle } from './activation';
 import { headerFigure } from './headers';
-import { firmwareScan, monteCarlo, noteRescore, pllSearch, spiceRatio, timerSearch } from './cases';
+import { clockTreeRescore, firmwareScan, monteCarlo, noteRescore, pllSearch, spiceRatio, timerSearch } from './cases';
 import { protocolEdits } from './lsp';
 
 export async function runBench(out: (line: string) => void): Promise<number> {
@@ -11,6 +11,7 @@ export async function runBench(out: (line: string) => void): Promise<number> {
   const steps: Array<[string, () => Row[] | Promise<Row[]>]> = [
     ['1', firmwareScan],
     ['2', noteRescore],
+    ['2b', clockTreeRescore],
     ['3', timerSearch],
     ['3b', pllSearch],
     ['4', spiceRatio],
