@@ -186,7 +186,7 @@ function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>
 }
 
 /**
- * In firmware, `2u` is C's unsigned 2; in a block it is 2 µ (DESIGN.md's SI prefixes). Said out loud where a
+ * In firmware, `2u` is C's unsigned 2; in a block it is 2 µ (docs/blocks.md, "Values and units"). Said out loud where a
  * firmware engineer is most likely to write it, a bare number with a lone `u`.
  */
 function unsignedSuffixHints(raw: RawBlock, model: CircuitModel): Finding[] {

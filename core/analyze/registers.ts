@@ -1,4 +1,4 @@
-// Register keys read as C constant expressions (DESIGN.md, "Values"): `reload: F_CPU / 64 / 1000 - 1` is what
+// Register keys read as C constant expressions (docs/blocks.md, "Values and units"): `reload: F_CPU / 64 / 1000 - 1` is what
 // the compiler makes of it, in the block's data model, with the firmware's macros.
 import { buildConstantTable, toNumber, tokenize, type ConstantTable, type DataModel } from '../c';
 import { Code } from '../codes';

@@ -19,7 +19,7 @@ export const capacitor = (key: string, label: string, description: string, more:
 export const voltage = (key: string, label: string, description: string, more: Defaults = {}) =>
   quantity(key, label, 'V', description, more);
 
-/** Results of every relaxation oscillator, in the order of DESIGN.md. */
+/** Results of every relaxation oscillator, in the order of docs/blocks.md ("Circuits"). */
 export const oscillatorResults: readonly ResultSpec[] = [
   { key: 'high', label: 'output high time', dim: 's' },
   { key: 'low', label: 'output low time', dim: 's' },

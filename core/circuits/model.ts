@@ -30,7 +30,7 @@ export interface QuantityParam {
 }
 
 /**
- * The one rule for which keys are registers (DESIGN.md, "Values"): plain-number keys marked `integer` or
+ * The one rule for which keys are registers (docs/blocks.md, "Values and units"): plain-number keys marked `integer` or
  * `register` take C constant expressions in the block's data model; keys with a unit keep the value language.
  */
 export function isRegisterKey(spec: QuantityParam): boolean {

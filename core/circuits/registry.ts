@@ -40,7 +40,7 @@ export const circuits: readonly CircuitModel[] = [
 
 const byId = new Map(circuits.map((model) => [model.id, model]));
 
-/** Circuit ids are matched as written in DESIGN.md; keys are case-insensitive, so ids are too. */
+/** Circuit ids are matched as written in docs/blocks.md; keys are case-insensitive, so ids are too. */
 export function circuitById(id: string): CircuitModel | undefined {
   return byId.get(id.trim().toLowerCase());
 }

@@ -1,4 +1,4 @@
-// `--json`: the shape DESIGN.md promises, SI base units, 1-based lines.
+// `--json`: the shape README.md ("Command line") promises, SI base units, 1-based lines.
 import type { BlockAnalysis, Finding } from '../types';
 import { displayPath } from './files';
 import { locate } from './locate';
