@@ -76,7 +76,7 @@ async function checkPanelAndPreview(page) {
   log(`panel: ${JSON.stringify(heading)}, readout ${JSON.stringify(readout)}`);
   await page.screenshot({ path: path.join(artifacts, 'editor-panel.png') });
   if (heading !== 'heartbeat') problems.push(`the panel shows ${JSON.stringify(heading)}, not heartbeat`);
-  if (!/^t = .*s · capacitor .*V · output .*V$/.test(readout)) problems.push(`the readout reads ${JSON.stringify(readout)}`);
+  if (!/^t = .*s · timing node .*V · output .*V$/.test(readout)) problems.push(`the readout reads ${JSON.stringify(readout)}`);
   await runCommand(page, 'View: Close All Editors');
   await page.getByRole('treeitem', { name: 'power-and-clock.md' }).dblclick({ timeout: 30_000 });
   await page.waitForSelector('.monaco-editor .codelens-decoration', { timeout: 30_000 });
