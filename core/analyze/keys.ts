@@ -1,6 +1,7 @@
 // Keys a block may carry besides its circuit's parameters, and the helpers to suggest a near miss.
 
 import { blockKey, blockKeys } from '../block-keys';
+import { cExtensions } from '../scan';
 
 /** Block keys that steer the analysis rather than describe the circuit (core/block-keys.ts is their table). */
 export const metaKeys: readonly string[] = blockKeys.map((spec) => spec.key);
@@ -9,7 +10,8 @@ export function isMetaKey(key: string): boolean {
   return blockKey(key) !== undefined;
 }
 
-const firmwareExtensions = ['.h', '.c', '.hh', '.hpp', '.cc', '.cpp', '.cxx', '.inc'];
+// The C-family types of core/scan, and `.inc`, which firmware includes but Tickmark does not scan.
+const firmwareExtensions = [...cExtensions, 'inc'].map((ext) => `.${ext}`);
 
 /**
  * A note names its firmware file with `firmware:`. The older spelling `from:` is still read as one when its value

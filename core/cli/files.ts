@@ -4,14 +4,12 @@ import * as fs from 'node:fs';
 import * as path from 'node:path';
 import ignore, { type Ignore } from 'ignore';
 import picomatch from 'picomatch';
+import { hostOfPath } from '../scan';
 
-const extensions = new Set(['.md', '.markdown', '.c', '.h', '.cc', '.cpp', '.cxx', '.hpp', '.hh']);
-/** The file types a check reads, as glob extensions (also the editor's workspace check). */
-export const timingHostExtensions = [...extensions].map((e) => e.slice(1));
 const skippedFolders = new Set(['node_modules', '.git', 'out', 'dist', 'build']);
 
 export function isTimingHost(file: string): boolean {
-  return extensions.has(path.extname(file).toLowerCase());
+  return hostOfPath(file) !== undefined;
 }
 
 export interface CollectOptions {

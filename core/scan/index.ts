@@ -7,8 +7,11 @@ export { scanMarkdown } from './markdown';
 export { scanC } from './c';
 export { lineStarts, lineOf } from './lines';
 
-const MARKDOWN_EXTENSIONS = new Set(['md', 'markdown']);
-const C_EXTENSIONS = new Set(['c', 'h', 'cc', 'cpp', 'hpp', 'hh', 'cxx']);
+// The one table of file types Tickmark reads: the scanner, the CLI's folder walk and the workspace check.
+const MARKDOWN_EXTENSIONS: ReadonlySet<string> = new Set(['md', 'markdown']);
+const C_EXTENSIONS: ReadonlySet<string> = new Set(['c', 'h', 'cc', 'cpp', 'cxx', 'hpp', 'hh']);
+/** The C-family extensions, without the dot (a note's `firmware:` file). */
+export const cExtensions: readonly string[] = [...C_EXTENSIONS];
 
 /** The lower-cased extension of a uri or path, ignoring any query or fragment. */
 function extensionOf(uri: string): string {
@@ -33,6 +36,11 @@ export function hostOf(doc: Pick<TextDocumentLike, 'uri' | 'languageId'>): ScanH
   if (MARKDOWN_EXTENSIONS.has(extension)) return 'markdown';
   if (C_EXTENSIONS.has(extension)) return 'c';
   return undefined;
+}
+
+/** The scanner a file path calls for, by its extension alone. */
+export function hostOfPath(path: string): ScanHost {
+  return hostOf({ uri: path, languageId: '' });
 }
 
 export function scanDocument(doc: TextDocumentLike): RawBlock[] {
