@@ -3,6 +3,7 @@
 import * as path from '../paths';
 import { Code } from '../codes';
 import type { Finding, Severity } from '../types';
+import { isTooLarge } from '../size';
 import { BUILTIN_URI_PREFIX, builtinHeader, BUILTIN_HEADERS, compilerPredefines } from './builtins';
 import { decideDefined, decideIf, preprocessorTypes, type Decision } from './conditions';
 import type { BuildConfig } from './config';
@@ -322,7 +323,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     // One re-entry is allowed so an include guard can end it quietly; a second means the cycle is unguarded.
     if (stack.filter((u) => u === found.uri).length >= 2) { spoil(); report(at, Code.cInclude, `${shown} includes itself (${[...stack, found.uri].join(' → ')}); not followed again`); return; }
     if (stack.length >= MAX_INCLUDE_DEPTH || ++includes > MAX_INCLUDES) { spoil(); report(at, Code.cExpansionLimit, `too many nested or repeated includes; ${shown} not read`); return; }
-    if (found.text.length > maxHeaderBytes) {
+    if (isTooLarge(found.text, maxHeaderBytes)) {
       report(at, Code.fileTooLarge, `${shown} is larger than the header size limit of ${Math.round(maxHeaderBytes / 1024)} KB (tickmark.c.maxHeaderSizeKB, --max-header-kb); not read`);
       return;
     }

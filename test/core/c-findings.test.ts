@@ -87,6 +87,18 @@ describe('C constant findings', () => {
     assert.equal(valueOf(headerRoom, 'A'), 1n);
   });
 
+  it('counts a header against its limit in UTF-8 bytes, as on disk', () => {
+    // U+00B5 MICRO SIGN is two bytes in UTF-8 (RFC 3629): a 40-character comment of them is 80 bytes.
+    const header = `/* ${'µ'.repeat(40)} */\n#define A 1\n`;
+    const files: Record<string, string> = { '/ws/units.h': header, '/ws/main.c': '#include "units.h"\n' };
+    const options = { dataModel: 'ilp32' as const, includeDirs: [], workspaceRoots: ['/ws'], read: (u: string) => files[u], maxFileBytes: 1000 };
+    assert.ok(header.length < 70, 'fewer characters than the limit');
+    const refused = buildConstantTable('/ws/main.c', files['/ws/main.c'], { ...options, maxHeaderBytes: 70 });
+    assert.equal(refused.findings[0]?.code, Code.fileTooLarge);
+    const read = buildConstantTable('/ws/main.c', files['/ws/main.c'], { ...options, maxHeaderBytes: 120 });
+    assert.equal(valueOf(read, 'A'), 1n);
+  });
+
   it('a malformed #define is positioned at its directive', () => {
     const text = '#define 42 x\n#define OK 2\n';
     const t = one(text);
