@@ -171,11 +171,11 @@ function safeCautions(model: CircuitModel, input: ReturnType<typeof modelInput>)
  * on a block named like a guard keeps the caution (a caution one word can remove protects no one).
  */
 function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>, raw: RawBlock, entries: Map<string, BlockEntry>, findings: Finding[]): string[] {
-  const all = safeCautions(model, input);
-  const cautions = all.filter((c) => c !== safetyCaution);
+  const cautions = safeCautions(model, input);
   const entry = entries.get('safety');
-  // A model whose timing is always safety-related (watchdog) gives the caution itself, whatever the name.
-  let safety = isSafetyName(raw.name) || all.includes(safetyCaution);
+  // The one place the safety-timing caution is added: by the block's name, by `safety: yes`, or by a model whose
+  // timing always guards something (watchdog), whatever the block is called.
+  let safety = isSafetyName(raw.name) || model.safetyRelated === true;
   if (entry) {
     const word = entry.valueText.trim().toLowerCase();
     if (word === 'yes') safety = true;

@@ -106,11 +106,6 @@ export const safetyCaution =
   'Safety-related timing (watchdog, reset, interlock): verify it independently on the built hardware, worst case over ' +
   'tolerance, temperature and supply, and follow the functional-safety standards and licensed practice that apply.';
 
-/** Timing that guards a system needs checking apart from the arithmetic that set it. */
-export function safetyCautions(input: ModelInput): string[] {
-  return isSafetyName(input.name) ? [safetyCaution] : [];
-}
-
 
 /** A value inside a formula: negatives in parentheses so "5 V − (−2.5 V)" reads right. */
 export function term(value: number, unit = ''): string {

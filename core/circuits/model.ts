@@ -185,7 +185,9 @@ export interface CircuitModel {
   compute(input: ModelInput): Record<string, number>;
   working(input: ModelInput, results: Readonly<Record<string, number>>): WorkingLine[];
   waveform?(input: ModelInput, cycles: number): Waveform;
-  /** Cautions in words for the hover (hazardous voltage, safety-related timing). */
+  /** Its timing always guards something (a watchdog): the engine adds the safety-timing caution whatever the name. */
+  safetyRelated?: boolean;
+  /** Cautions in words for the hover (hazardous voltage, out-of-range use); the safety-timing caution is the engine's. */
   cautions?(input: ModelInput): string[];
   /** For timers: search the `?` registers for a target. */
   search?(input: ModelInput, search: RegisterSearch): RegisterSearchResult | RegisterSearchFailure;

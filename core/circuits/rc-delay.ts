@@ -1,7 +1,7 @@
 // RC delay: the time for a capacitor charging through R to pass a level (power-on reset, enable delays).
 import { rcReaches, rcSegmentTime } from '../rc';
 import type { CircuitModel, ModelInput, ModelIssue } from './model';
-import { capacitor, checkFinite, checkPositive, eng, finiteOnly, resistor, safetyCautions, voltage, voltageCautions } from './common';
+import { capacitor, checkFinite, checkPositive, eng, finiteOnly, resistor, voltage, voltageCautions } from './common';
 import { sampleRcSegments } from './segments';
 
 function delayTime(input: ModelInput): number {
@@ -68,5 +68,5 @@ export const rcDelay: CircuitModel = {
     return { traces: [capacitorTrace], levels: [{ label: 'end level', value: input.values.to }], duration: time + tail };
   },
 
-  cautions: (input) => [...voltageCautions(input, ['from', 'to', 'toward', 'supply']), ...safetyCautions(input)],
+  cautions: (input) => voltageCautions(input, ['from', 'to', 'toward', 'supply']),
 };

@@ -1,7 +1,7 @@
 // MCU timer: a counter clocked at clock/prescaler that wraps at the reload (period) register.
 import type { CircuitModel, ModelInput, ModelIssue, RegisterSearch, Waveform } from './model';
 import { Code } from '../codes';
-import { checkPositive, eng, finiteOnly, percent, quantity, safetyCautions } from './common';
+import { checkPositive, eng, finiteOnly, percent, quantity } from './common';
 import { anyPrescaler, normaliseSet, setContains, setText } from './integer-set';
 import { searchTimerRegisters, ticksPerPeriod, type CountMode } from './timer-search';
 import { clampCycles, finitePoints } from './segments';
@@ -114,7 +114,6 @@ export const timer: CircuitModel = {
 
   waveform: timerWaveform,
 
-  cautions: (input) => safetyCautions(input),
 
   search(input, search: RegisterSearch) {
     if (search.measure !== 'frequency' && search.measure !== 'period') {

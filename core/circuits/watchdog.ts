@@ -1,7 +1,7 @@
 // Independent watchdog: a down-counter clocked at clock / prescaler from reload; a refresh reloads it, and
 // reaching zero resets the system. A window watchdog also refuses a refresh while the count is above `window`.
 import type { CircuitModel, ModelInput, ModelIssue, Waveform, WorkingLine } from './model';
-import { checkPositive, checkWhole, eng, finiteOnly, hasErrors, percent, quantity, safetyCaution } from './common';
+import { checkPositive, checkWhole, eng, finiteOnly, hasErrors, percent, quantity } from './common';
 import { clampCycles, finitePoints } from './segments';
 import { Code } from '../codes';
 
@@ -123,7 +123,7 @@ export const watchdog: CircuitModel = {
   waveform: watchdogWaveform,
 
   // Watchdog timing guards the system whatever the block is called.
-  cautions: () => [safetyCaution],
+  safetyRelated: true,
 };
 
 /** The count after each refresh at the nominal and the fastest clock, with the window and zero as levels. */
