@@ -71,6 +71,16 @@ function drawLane(lane: Lane, frame: Frame, wave: Waveform, duration: number, pa
   }
 }
 
+function levelLabel(wave: Waveform, level: Waveform['levels'][number]): string {
+  return `${String(level.label ?? '')} ${tickLabel(level.value, wave.traces[0]?.dim ?? 'V')}`;
+}
+
+/** The right margin holds the level labels whole ("end level 2.64 V"): about 6.5 px a character at 11 px, at most a third of the width. */
+function rightMargin(wave: Waveform, width: number): number {
+  const longest = Math.max(0, ...(wave.levels ?? []).map((level) => Math.min(levelLabel(wave, level).length, 40)));
+  return Math.min(Math.max(MARGIN.right, 12 + Math.ceil(6.5 * longest)), Math.floor(width / 3));
+}
+
 /** Dashed threshold lines, labelled in the right margin; labels pushed apart so close levels stay legible. */
 function drawLevels(wave: Waveform, toY: (v: number) => number, frame: Frame, palette: Palette, out: string[]): void {
   const levels = (wave.levels ?? [])
@@ -84,8 +94,7 @@ function drawLevels(wave: Waveform, toY: (v: number) => number, frame: Frame, pa
     );
     const labelY = Math.max(level.y + 4, lastLabelY + 12);
     lastLabelY = labelY;
-    const label = `${String(level.label ?? '')} ${tickLabel(level.value, wave.traces[0]?.dim ?? 'V')}`;
-    out.push(text(frame.right + 6, labelY, label, `font-size="11" fill="${palette.ink}"`));
+    out.push(text(frame.right + 6, labelY, levelLabel(wave, level), `font-size="11" fill="${palette.ink}"`));
   }
 }
 
@@ -135,7 +144,7 @@ export function renderWaveformSvg(wave: Waveform, options: WaveformSvgOptions): 
   const plotTop = MARGIN.top;
   const plotBottom = height - MARGIN.bottom;
   const laneHeight = Math.max(20, (plotBottom - plotTop - LANE_GAP * (lanes.length - 1)) / lanes.length);
-  const right = width - MARGIN.right;
+  const right = width - rightMargin(wave, width);
   const frames = lanes.map((_, i): Frame => {
     const top = plotTop + i * (laneHeight + LANE_GAP);
     return { left: MARGIN.left, right, top, bottom: top + laneHeight };

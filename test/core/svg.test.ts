@@ -326,3 +326,18 @@ describe('renderWaveformSvg with subnormal values', () => {
     assert.doesNotMatch(svg, /NaN|Infinity/);
   });
 });
+
+describe('level labels', () => {
+  it('keeps a long level label inside the drawing, whole', () => {
+    const wave: Waveform = {
+      traces: [{ name: 'timing node', dim: 'V', points: [[0, 0], [1e-3, 2.64]] }],
+      levels: [{ label: 'end level', value: 2.64 }],
+      duration: 1e-3,
+    };
+    const svg = renderWaveformSvg(wave, { title: 'rc', width: 480 });
+    const label = /<text x="([\d.]+)"[^>]*>(end level [^<]*)<\/text>/.exec(svg);
+    assert.ok(label, 'the level label is drawn');
+    // Sans-serif at 11 px averages under 6.5 px a character (common practice for Helvetica/DejaVu widths, from memory).
+    assert.ok(Number(label[1]) + 6.5 * label[2].length <= 480, `"${label[2]}" at x=${label[1]} runs past 480 px`);
+  });
+});
