@@ -13,11 +13,12 @@ const run = (command, args, options = {}) => execFileSync(command, args, { cwd: 
 
 run(process.execPath, ['scripts/build.mjs', '--release']);
 // What ships is package.json `files` (the npm tarball and the .vsix alike; vsce takes no .vscodeignore beside
-// it). The Marketplace and Open VSX page is MARKETPLACE.md, a user-facing README; vsce turns its relative
-// image paths into links under the `repository` URL, where docs/screenshots/ is published.
+// it). The Marketplace and Open VSX page is MARKETPLACE.md, a user-facing README. Its image paths stay relative
+// and the images ship in the .vsix, so the page loads them from the installed extension: the `repository` URL is
+// not published yet, and links rewritten under it would not load (DEVELOPERS.md).
 try {
   run(process.execPath, [path.join(projectRoot, 'node_modules', '@vscode', 'vsce', 'vsce'), 'package', '--no-dependencies',
-    '--readme-path', 'MARKETPLACE.md', '--out', vsix]);
+    '--readme-path', 'MARKETPLACE.md', '--no-rewrite-relative-links', '--out', vsix]);
 } catch {
   process.exit(1);
 }

@@ -43,9 +43,11 @@ describe('MARKETPLACE.md, the page of the .vsix', () => {
   const pkg = JSON.parse(fs.readFileSync(path.join(root, 'package.json'), 'utf8'));
   const page = fs.readFileSync(path.join(root, 'MARKETPLACE.md'), 'utf8');
 
-  it('shows images that ship in the package and that vsce can turn into repository links', () => {
-    // vsce rewrites a relative image path to <repository>/raw/HEAD/<path>; without `repository` it refuses them.
+  it('shows images that ship in the package, by paths the installed extension resolves', () => {
+    // vsce refuses relative image paths without `repository`; scripts/package.mjs keeps them relative
+    // (--no-rewrite-relative-links), so the editor loads them from the installed .vsix.
     assert.match(pkg.repository.url, /^https:\/\/github\.com\/[^/]+\/[^/]+\.git$/);
+    assert.match(fs.readFileSync(path.join(root, 'scripts', 'package.mjs'), 'utf8'), /--no-rewrite-relative-links/);
     const images = [...page.matchAll(/!\[[^\]]*\]\(([^)]+)\)/g)].map((m) => m[1]);
     assert.ok(images.length >= 4);
     for (const image of images) {
