@@ -63,7 +63,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   const plan = buildPlan(raw, model, context.source, dataModel, entries, context.references);
   findings.push(...plan.findings);
   if (plan.references.length) analysis.references = plan.references;
-  findings.push(...seriesFindings(raw, model, context.uri));
+  findings.push(...seriesFindings(plan, context.uri));
   analysis.identifiers = plan.identifiers;
   analysis.choices = { ...plan.choices };
   analysis.lists = { ...plan.lists };

@@ -24,6 +24,8 @@ export interface Slot {
   upstream?: Array<[string, BlockOutput, string]>;
   /** The value is exactly one firmware identifier (the target of a "set the constant" fix). */
   soleIdentifier?: string;
+  /** The value as parsed, once: later checks (a part off its series) read it here. */
+  expr?: ValueNode;
 }
 
 export interface Unknown {
@@ -178,7 +180,7 @@ export function buildPlan(
       continue;
     }
     const slot = compileSlot(plan, spec, entry, parsed.expr, parsed.tolerance, quantityKeys, source, dataModel, references);
-    if (slot) plan.slots.set(spec.key, slot);
+    if (slot) plan.slots.set(spec.key, { ...slot, expr: parsed.expr });
   }
   for (const spec of model.params) {
     if (spec.kind === 'choice' && !(spec.key in plan.choices)) plan.choices[spec.key] = spec.default;
