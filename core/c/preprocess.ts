@@ -161,7 +161,9 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     };
 
     const skimmed = emptySkim();
-    // 1-based line of the current logical line's start, counted here so #define needs no pass of its own.
+    // 1-based line of the current logical line's start, counted here so #define needs no pass of its own. The
+    // skim counts \n alone; a file with a lone \r (a line end to the editor) asks the one line table instead.
+    const skimCountsLines = !/\r(?!\n)/.test(source);
     let lineNumber = 0;
     let nextLine = 1;
     for (let pos = 0; pos <= source.length;) {
@@ -214,7 +216,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
       } else if (!live()) {
         continue;
       } else if (name === 'define') {
-        define(line, uri, at.newlines === 0 && at.unterminatedAt < 0 ? lineNumber : undefined);
+        define(line, uri, skimCountsLines && at.newlines === 0 && at.unterminatedAt < 0 ? lineNumber : undefined);
       } else if (name === 'undef') {
         if (line[2]?.kind === 'ident') current.macros.set(line[2].text, { kind: 'undef' });
         else report(hash, Code.cSyntax, '#undef needs a macro name');

@@ -1,5 +1,6 @@
 // C tokenizer: one pass, offsets into the original text, never throws.
 // Comments count as white space (ISO C11 5.1.1.2 phase 3), so a newline inside /* */ does not end a directive.
+import { LineCounter, lineOf, lineStarts } from '../scan/lines';
 
 export type TokenKind = 'ident' | 'number' | 'char' | 'string' | 'punct' | 'newline' | 'other';
 
@@ -138,32 +139,21 @@ function quoted(text: string, q: number, quote: string, tokens: Token[], start: 
 }
 
 /**
- * 1-based line numbers from offsets. Questions usually come in file order, so a cursor counts forward;
- * an earlier offset falls back to a binary search over line starts.
+ * 1-based line numbers from offsets, on the scanners' one line table (core/scan/lines.ts: \r\n, \n or a lone \r
+ * ends a line). Questions usually come in file order, so a counter runs forward; an earlier offset falls back to a
+ * binary search over line starts.
  */
 export function lineIndex(text: string): (offset: number) => number {
-  let cursor = 0;
-  let cursorLine = 1;
+  const counter = new LineCounter(text);
+  let last = 0;
   let starts: number[] | undefined;
   return (offset) => {
-    if (!starts && offset >= cursor) {
-      const end = Math.min(offset, text.length);
-      for (let i = cursor; i < end; i++) if (text.charCodeAt(i) === 10) cursorLine++;
-      cursor = Math.max(cursor, end);
-      return cursorLine;
+    if (!starts && offset >= last) {
+      last = offset;
+      return counter.lineOf(offset) + 1;
     }
-    if (!starts) {
-      starts = [0];
-      for (let i = 0; i < text.length; i++) if (text.charCodeAt(i) === 10) starts.push(i + 1);
-    }
-    let lo = 0;
-    let hi = starts.length - 1;
-    while (lo < hi) {
-      const mid = (lo + hi + 1) >> 1;
-      if (starts[mid] <= offset) lo = mid;
-      else hi = mid - 1;
-    }
-    return lo + 1;
+    starts ??= lineStarts(text);
+    return lineOf(starts, offset) + 1;
   };
 }
 

@@ -26,6 +26,15 @@ describe('C constant definitions', () => {
     }
   });
 
+  it('counts lines as the editor and the scanners do, a lone carriage return included', () => {
+    // CommonMark 0.31.2 §2.1 and VS Code end a line at \r\n, \n or a lone \r: a comment written on an old editor
+    // keeps its \r, and the definition below it is on line 4 in the editor, not line 3.
+    const text = '/* board setup\rrev B */\r\n\n#define TOP 255u\n';
+    const r = workspace({ '/ws/old.h': text }).table('/ws/old.h').lookup('TOP');
+    assert.ok(r.ok);
+    assert.equal(r.definition.line, 4);
+  });
+
   it('spans a #define from # to its last token, across a line splice', () => {
     const d = def('LONG_MACRO');
     assert.equal(FILE.slice(d.span.start, d.span.end), '#define LONG_MACRO (1 + \\\n  2)');
