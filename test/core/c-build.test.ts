@@ -5,34 +5,16 @@
 // compilers are in test/reference/gcc-build.test.ts.
 import { strict as assert } from 'assert';
 import * as fs from 'node:fs';
-import * as os from 'node:os';
 import * as path from 'node:path';
 import { analyzeDocument, defaultAnalyzeOptions, defaultFirmwareSettings, FirmwareCache, firmwareOptions, parseFirmwareSettings, type AnalyzeOptions } from '../../core/analyze';
 import { buildConstantTable } from '../../core/c';
 import { configFromArguments, parseCompileDatabase, splitCommand } from '../../core/c/config';
-import { main } from '../../core/cli/main';
 import { Code } from '../../core/codes';
 import { valueOf } from './c-helpers';
+import { runCli, tempWorkspace } from '../helpers/cli';
 
-const made: string[] = [];
-after(() => made.forEach((dir) => fs.rmSync(dir, { recursive: true, force: true })));
-
-function folder(files: Record<string, string>): string {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-build-'));
-  made.push(dir);
-  for (const [name, text] of Object.entries(files)) {
-    fs.mkdirSync(path.dirname(path.join(dir, name)), { recursive: true });
-    fs.writeFileSync(path.join(dir, name), text);
-  }
-  return dir;
-}
-
-function run(argv: string[], cwd: string) {
-  let out = '';
-  let err = '';
-  const code = main(argv, { out: (t) => (out += t), err: (t) => (err += t), cwd, color: false });
-  return { code, out, err };
-}
+const folder = (files: Record<string, string>) => tempWorkspace(files, 'tickmark-build-');
+const run = runCli;
 
 const table = (files: Record<string, string>, entry: string, args?: string[], extra: Partial<Parameters<typeof buildConstantTable>[2]> = {}) =>
   buildConstantTable(entry, files[entry], {

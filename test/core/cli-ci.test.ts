@@ -3,7 +3,6 @@
 // Actions workflow commands; the JSON report's version and relative paths.
 import { strict as assert } from 'assert';
 import * as fs from 'node:fs';
-import * as os from 'node:os';
 import * as path from 'node:path';
 import Ajv from 'ajv';
 import addFormats from 'ajv-formats';
@@ -11,26 +10,10 @@ import { spawnSync } from 'node:child_process';
 import { main } from '../../core/cli/main';
 import { wantsColor } from '../../core/cli/color';
 import { codeTable } from '../../core/codes';
+import { runCli, tempWorkspace } from '../helpers/cli';
 
-const made: string[] = [];
-after(() => made.forEach((dir) => fs.rmSync(dir, { recursive: true, force: true })));
-
-function workspace(files: Record<string, string>): string {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-ci-'));
-  made.push(dir);
-  for (const [name, text] of Object.entries(files)) {
-    fs.mkdirSync(path.dirname(path.join(dir, name)), { recursive: true });
-    fs.writeFileSync(path.join(dir, name), text);
-  }
-  return dir;
-}
-
-function run(argv: string[], cwd: string) {
-  let out = '';
-  let err = '';
-  const code = main(argv, { out: (t) => (out += t), err: (t) => (err += t), cwd, color: false });
-  return { code, out, err };
-}
+const workspace = (files: Record<string, string>) => tempWorkspace(files, 'tickmark-ci-');
+const run = runCli;
 
 /** The SARIF 2.1.0 schema from npm. It is draft-04 JSON Schema; its only draft-04 keyword is the root `id`. */
 function sarifValidator() {

@@ -1,30 +1,10 @@
 // `tickmark check` resolves references across every file it reads: JSON lists them with the referenced block's
 // file and line, and a finding on a reference (human, JSON, SARIF) points at the line that holds it.
 import { strict as assert } from 'assert';
-import * as fs from 'node:fs';
-import * as os from 'node:os';
-import * as path from 'node:path';
-import { main } from '../../core/cli/main';
+import { runCli, tempWorkspace } from '../helpers/cli';
 
-const made: string[] = [];
-after(() => made.forEach((dir) => fs.rmSync(dir, { recursive: true, force: true })));
-
-function workspace(files: Record<string, string>): string {
-  const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-cli-refs-'));
-  made.push(dir);
-  for (const [name, text] of Object.entries(files)) {
-    fs.mkdirSync(path.dirname(path.join(dir, name)), { recursive: true });
-    fs.writeFileSync(path.join(dir, name), text);
-  }
-  return dir;
-}
-
-function run(argv: string[], cwd: string) {
-  let out = '';
-  let err = '';
-  const code = main(argv, { out: (t) => (out += t), err: (t) => (err += t), cwd, color: false });
-  return { code, out, err };
-}
+const workspace = (files: Record<string, string>) => tempWorkspace(files, 'tickmark-cli-refs-');
+const run = runCli;
 
 const files = {
   'notes/clocks.md': ['# clocks', '', '```timing xtal', 'circuit: clock', 'frequency: 8 MHz ±20 ppm', '```', ''].join('\n'),
