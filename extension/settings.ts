@@ -1,19 +1,8 @@
 // The tickmark.* settings as the features read them; names and defaults match package.json.
 import * as vscode from 'vscode';
-import { parseFirmwareSettings, type FirmwareSettings } from '../core/analyze/settings';
+import { parseFirmwareSettings, type DataModelSetting, type TickmarkSettings } from '../core/analyze/settings';
 
-export type DataModelSetting = 'ilp32' | 'lp64' | 'ip16';
-
-export interface TickmarkSettings {
-  defaultTolerancePercent: number;
-  defaultSeries: string;
-  dataModel: DataModelSetting;
-  includeFolders: string[];
-  lensEnabled: boolean;
-  maxSizeKB: number;
-  /** tickmark.c.defines, compileCommands, maxHeaderSizeKB and workspace trust, read as the language server reads them. */
-  firmware: FirmwareSettings;
-}
+export type { TickmarkSettings } from '../core/analyze/settings';
 
 const dataModels: readonly DataModelSetting[] = ['ilp32', 'lp64', 'ip16'];
 const seriesNames: readonly string[] = ['E3', 'E6', 'E12', 'E24', 'E48', 'E96', 'E192', 'none'];

@@ -2,20 +2,10 @@
 // workspace/configuration answers) or dotted keys (`{ "c.dataModel": … }`, as people write initializationOptions).
 // Names and defaults match package.json; a value of the wrong type or out of range falls back to the default.
 
-import { defaultFirmwareSettings, parseFirmwareSettings, type FirmwareSettings } from '../core/analyze/settings';
+import { defaultFirmwareSettings, parseFirmwareSettings, type DataModelSetting, type TickmarkSettings } from '../core/analyze/settings';
 
-export type DataModelSetting = 'ilp32' | 'lp64' | 'ip16';
-
-export interface ServerSettings {
-  defaultTolerancePercent: number;
-  defaultSeries: string;
-  dataModel: DataModelSetting;
-  includeFolders: string[];
-  lensEnabled: boolean;
-  maxSizeKB: number;
-  /** tickmark.c.defines, compileCommands, maxHeaderSizeKB and `workspaceTrusted`, read as the extension reads them. */
-  firmware: FirmwareSettings;
-}
+/** The one shape of the settings (core/analyze/settings.ts), here read from a language-server client. */
+export type ServerSettings = TickmarkSettings;
 
 export const defaultSettings: ServerSettings = {
   defaultTolerancePercent: 1,

@@ -15,6 +15,20 @@ export interface FirmwareSettings {
   trusted: boolean;
 }
 
+export type DataModelSetting = 'ilp32' | 'lp64' | 'ip16';
+
+/** Every tickmark.* setting as the extension and the language server read it; names and defaults as in package.json. */
+export interface TickmarkSettings {
+  defaultTolerancePercent: number;
+  defaultSeries: string;
+  dataModel: DataModelSetting;
+  includeFolders: string[];
+  lensEnabled: boolean;
+  maxSizeKB: number;
+  /** tickmark.c.defines, compileCommands, maxHeaderSizeKB and workspace trust. */
+  firmware: FirmwareSettings;
+}
+
 export const defaultFirmwareSettings: FirmwareSettings = { defines: [], compileCommands: '', maxHeaderSizeKB: 8192, trusted: true };
 
 /** Reads the settings through `pick` (a dotted key below `tickmark`, as `c.defines`); wrong types fall back to `base`. */
