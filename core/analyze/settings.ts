@@ -31,6 +31,42 @@ export interface TickmarkSettings {
 
 export const defaultFirmwareSettings: FirmwareSettings = { defines: [], compileCommands: '', maxHeaderSizeKB: 8192, trusted: true };
 
+export const defaultSettings: TickmarkSettings = {
+  defaultTolerancePercent: 1,
+  defaultSeries: 'E24',
+  dataModel: 'ilp32',
+  includeFolders: [],
+  lensEnabled: true,
+  maxSizeKB: 1024,
+  firmware: defaultFirmwareSettings,
+};
+
+const dataModels: readonly DataModelSetting[] = ['ilp32', 'lp64', 'ip16'];
+const seriesNames: readonly string[] = ['E3', 'E6', 'E12', 'E24', 'E48', 'E96', 'E192', 'none'];
+
+/**
+ * Every tickmark.* setting through `pick` (a dotted key below `tickmark`, as `c.dataModel`); a value of the wrong
+ * type or out of range falls back to `base`. The extension and the language server differ only in their `pick`.
+ */
+export function parseSettings(pick: (key: string) => unknown, base: TickmarkSettings = defaultSettings): TickmarkSettings {
+  const tolerance = pick('check.defaultTolerance');
+  const series = pick('solve.defaultSeries');
+  const dataModel = pick('c.dataModel');
+  const folders = pick('c.includeFolders');
+  const lens = pick('lens.enabled');
+  const size = pick('files.maxSizeKB');
+  return {
+    // 0 % is allowed (package.json minimum): an exact claim.
+    defaultTolerancePercent: typeof tolerance === 'number' && Number.isFinite(tolerance) && tolerance >= 0 && tolerance <= 100 ? tolerance : base.defaultTolerancePercent,
+    defaultSeries: seriesNames.find((name) => typeof series === 'string' && name.toLowerCase() === series.toLowerCase()) ?? base.defaultSeries,
+    dataModel: dataModels.includes(dataModel as DataModelSetting) ? (dataModel as DataModelSetting) : base.dataModel,
+    includeFolders: Array.isArray(folders) ? folders.filter((f): f is string => typeof f === 'string') : base.includeFolders,
+    lensEnabled: typeof lens === 'boolean' ? lens : base.lensEnabled,
+    maxSizeKB: typeof size === 'number' && Number.isFinite(size) && size > 0 ? size : base.maxSizeKB,
+    firmware: parseFirmwareSettings(pick, base.firmware),
+  };
+}
+
 /** Reads the settings through `pick` (a dotted key below `tickmark`, as `c.defines`); wrong types fall back to `base`. */
 export function parseFirmwareSettings(pick: (key: string) => unknown, base: FirmwareSettings = defaultFirmwareSettings): FirmwareSettings {
   const defines = pick('c.defines');
