@@ -1,6 +1,6 @@
 // UART baud-rate generator: rate = clock / (oversampling · divisor), error against the wanted rate.
 // Without `divisor` the nearest whole divisor (at least 1) is used, as integer divisor UARTs do
-// (AVR UBRR + 1, the 16550 divisor latch); give `divisor` for fractional baud-rate generators.
+// (the register often holds the ratio − 1); give `divisor` for fractional baud-rate generators.
 import type { CircuitModel, ModelInput, ModelIssue, WorkingLine } from './model';
 import { Code } from '../codes';
 import { formatBaud } from '../format';
@@ -29,9 +29,9 @@ export const baud: CircuitModel = {
   title: 'UART baud rate',
   summary: 'A UART baud-rate divisor: the rate a clock, oversampling and divisor really give, and its error against the wanted rate.',
   assumptions: [
-    'divisor is the whole division ratio after oversampling (AVR: UBRR + 1); it may be fractional for fractional generators.',
+    'divisor is the whole division ratio after oversampling (a register that holds ratio − 1 must be converted); it may be fractional for fractional generators.',
     'Without `divisor`, the nearest whole divisor of at least 1 is used.',
-    'The clock is exact; a crystal\'s own tolerance adds to the error.',
+    'A clock written without a tolerance is taken as exact; give it one, or reference a clock block, and its tolerance enters the error band.',
   ],
   params: [
     quantity('clock', 'UART clock', 'Hz', 'Clock into the baud-rate generator.'),

@@ -15,7 +15,7 @@ import { compileConstants, compilerAvailable, REFERENCE_COMPILERS, type Compiled
 const PRELUDE = `
 #define F_CPU 16000000UL
 #define BAUD 9600
-#define UBRR_VALUE ((F_CPU / (16UL * BAUD)) - 1)
+#define UART_DIVISOR_VALUE ((F_CPU / (16UL * BAUD)) - 1)
 #define SQ(x) ((x) * (x))
 #define TWICE(x) (2 * (x))
 #define ADD(a, b) ((a) + (b))
@@ -111,7 +111,7 @@ const CASES: Case[] = [
   { expr: '1.5f * 2', rule: 'C11 6.3.1.8 int converts to float' },
   { expr: '0x1p4 + 1e3', rule: 'C11 6.4.4.2 hexadecimal floating constant' },
   { expr: '0.1 + 0.2 == 0.3', rule: 'IEC 60559 double rounding (C11 Annex F)' },
-  { expr: 'UBRR_VALUE', rule: 'C11 6.10.3 object-like macros rescanned' },
+  { expr: 'UART_DIVISOR_VALUE', rule: 'C11 6.10.3 object-like macros rescanned' },
   { expr: 'SQ(TWICE(3) + 1)', rule: 'C11 6.10.3.1 arguments expanded before substitution' },
   { expr: 'MUL(ADD(1, 2), ADD(3, 4))', rule: 'C11 6.10.3.1' },
   { expr: 'ID(ID(ID(5)))', rule: 'C11 6.10.3.4' },
