@@ -31,7 +31,7 @@ export const timer: CircuitModel = {
   assumptions: [
     'mode up: the counter runs 0 … reload, so a period is reload + 1 ticks of clock/prescaler; duty = compare/(reload + 1), output active while the count is below compare.',
     'mode up-down: 0 → reload → 0, a period of 2·reload ticks; duty = compare/reload (centre-aligned PWM).',
-    'prescaler is the division ratio itself (a register that holds ratio − 1 must be converted); the clock is exact.',
+    'prescaler is the division ratio itself (a register that holds ratio − 1 must be converted); a clock written without a tolerance is taken as exact.',
   ],
   params: [
     quantity('clock', 'timer input clock', 'Hz', 'Clock into the prescaler.'),
