@@ -5,17 +5,23 @@ export function isTooLarge(text: string, maxBytes: number): boolean {
   return utf8Bytes(text) > maxBytes;
 }
 
+const nonAscii = /[^\x00-\x7f]+/g;
+
 /** Bytes of `text` in UTF-8 (RFC 3629): 1 to 3 per UTF-16 unit, 4 per surrogate pair, 3 for a lone surrogate (U+FFFD). */
 export function utf8Bytes(text: string): number {
-  let bytes = 0;
-  for (let i = 0; i < text.length; i++) {
-    const unit = text.charCodeAt(i);
-    if (unit < 0x80) bytes += 1;
-    else if (unit < 0x800) bytes += 2;
-    else if (unit >= 0xd800 && unit <= 0xdbff && i + 1 < text.length && (text.charCodeAt(i + 1) & 0xfc00) === 0xdc00) {
-      bytes += 4;
-      i++;
-    } else bytes += 3;
+  // One byte per unit, plus what the non-ASCII stretches add, found by a native scan (source text is mostly ASCII).
+  let bytes = text.length;
+  nonAscii.lastIndex = 0;
+  for (let m = nonAscii.exec(text); m; m = nonAscii.exec(text)) {
+    const run = m[0];
+    for (let i = 0; i < run.length; i++) {
+      const unit = run.charCodeAt(i);
+      if (unit < 0x800) bytes += 1;
+      else if (unit >= 0xd800 && unit <= 0xdbff && i + 1 < run.length && (run.charCodeAt(i + 1) & 0xfc00) === 0xdc00) {
+        bytes += 2;
+        i++;
+      } else bytes += 2;
+    }
   }
   return bytes;
 }

@@ -7,6 +7,7 @@ import { compileValue, parseValue } from '../value';
 import { Code } from '../codes';
 import type { BlockContext, DataModelName } from './context';
 import { didYouMean } from './keys';
+import { modelKeys } from './model-keys';
 import { buildPlan, type Plan } from './plan';
 import { evaluateParams, ownTolerancedKeys, tolerancedKeys } from './evaluate';
 import { computeAt, finiteOnly, limitIssues, modelInput, runModel } from './measure';
@@ -21,7 +22,8 @@ const dataModels = (blockKey('data-model')?.words ?? []).map((w) => w.word as Da
 
 export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysis {
   const findings: Finding[] = [...raw.findings];
-  const entries = new Map(raw.entries.map((e) => [e.key, e]));
+  const entries = new Map<string, BlockEntry>();
+  for (const e of raw.entries) entries.set(e.key, e);
   const circuitEntry = entries.get('circuit');
   const circuitId = circuitEntry?.valueText.trim().toLowerCase();
   const analysis: BlockAnalysis = {
@@ -189,18 +191,24 @@ function blockCautions(model: CircuitModel, input: ReturnType<typeof modelInput>
  * In firmware, `2u` is C's unsigned 2; in a block it is 2 µ (docs/blocks.md, "Values and units"). Said out loud where a
  * firmware engineer is most likely to write it, a bare number with a lone `u`.
  */
+const firmwareNamePattern = /\b[A-Z][A-Z0-9]{2,}\b/;
+const firmwareName = (text: string) => text.includes('_') || firmwareNamePattern.test(text);
+const digitU = /\d[uU]/;
+
 function unsignedSuffixHints(raw: RawBlock, model: CircuitModel): Finding[] {
   const hints: Finding[] = [];
   // Beside a firmware name (`SYS_CLOCK / 2u`) or in a plain-number key (`prescaler: 2u`, a register); `c: 2u`
   // alone is a 2 µF capacitor, as meant.
   // Linear tests only: a value line can be hostile and long.
-  const firmwareName = (text: string) => text.includes('_') || /\b[A-Z][A-Z0-9]{2,}\b/.test(text);
+  const params = modelKeys(model).params;
   for (const entry of raw.entries) {
-    const spec = model.params.find((p) => p.key === entry.key);
+    const spec = params.get(entry.key);
     // Register keys are C (`prescaler: 2u` is the unsigned 2), so the hint is for values with a unit only.
     if (spec?.kind === 'quantity' && isRegisterKey(spec)) continue;
     const plainNumber = spec?.kind === 'quantity' && spec.dim === '';
     if (!plainNumber && !firmwareName(entry.valueText)) continue;
+    // Most values hold no `u` after a digit at all: one native test before the search that builds matches.
+    if (!digitU.test(entry.valueText)) continue;
     const pattern = /(?<![\w.])(\d+)[uU](?![\w(])/g;
     for (let m = pattern.exec(entry.valueText); m; m = pattern.exec(entry.valueText)) {
       const start = entry.valueSpan.start + m.index;

@@ -133,7 +133,7 @@ function recordingSource(inner: IdentifierSource): { source: IdentifierSource; l
 
 function referenceAnswer(found: ReferenceLookup): string {
   if (!found.ok) return JSON.stringify([found.code, found.message]);
-  return JSON.stringify([found.output.fingerprint, found.result]);
+  return JSON.stringify([found.output.fingerprint(), found.result]);
 }
 
 function referencesHold(entry: Entry, source: ReferenceSource | undefined): boolean {

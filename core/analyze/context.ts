@@ -102,7 +102,7 @@ export interface BlockOutput {
   /** Results with the inputs at the given offsets (keyed by input id, absent = nominal); undefined when they break the model. */
   at(offsets: Offsets): Readonly<Record<string, number>> | undefined;
   /** Changes whenever anything its results depend on changes: caches of dependants compare it. */
-  fingerprint: string;
+  fingerprint(): string;
 }
 
 export type ReferenceLookup = { ok: true; output: BlockOutput; result: string; dim: Dim } | { ok: false; code: string; message: string };

@@ -29,6 +29,8 @@ export interface ReferenceGraph {
   order: number[];
   /** Warnings on blocks sharing a name in one file, by block index. */
   duplicates: Map<number, Finding>;
+  /** Blocks that another block's reference resolved to: only these need to hand their results on. */
+  referenced: Set<number>;
 }
 
 /** References written in a block's circuit values (claims and settings state numbers, not references). */
@@ -40,6 +42,9 @@ export function blockReferences(raw: RawBlock): BlockRef[] {
   }
   return refs;
 }
+
+// Shared by every block without references: the passes below write only to names a table holds, so never to it.
+const noResolutions = new Map<string, Resolution>();
 
 export function buildGraph(blocks: readonly GraphBlock[]): ReferenceGraph {
   const byName = new Map<string, number[]>();
@@ -63,15 +68,23 @@ export function buildGraph(blocks: readonly GraphBlock[]): ReferenceGraph {
     }
   }
 
+  let linked = false;
   const resolutions = blocks.map((block) => {
+    const refs = blockReferences(block.raw);
+    // Most blocks read no other block: they share one empty table, which nothing below writes to.
+    if (refs.length === 0) return noResolutions;
     const own = new Map<string, Resolution>();
-    for (const ref of blockReferences(block.raw)) if (!own.has(ref.block)) own.set(ref.block, resolve(ref.block, block, blocks, byName));
+    for (const ref of refs) if (!own.has(ref.block)) own.set(ref.block, resolve(ref.block, block, blocks, byName));
+    linked = true;
     return own;
   });
+  // Without a single reference every block stands alone, in document order.
+  if (!linked) return { resolutions, order: blocks.map((_, i) => i), duplicates, referenced: new Set() };
   const targets = resolutions.map((own) => [...own.values()].flatMap((r) => ('target' in r ? [r.target] : [])));
+  const referenced = new Set(targets.flat());
   markCycles(blocks, resolutions, targets);
   const order = topologicalOrder(targets, resolutions, blocks);
-  return { resolutions, order, duplicates };
+  return { resolutions, order, duplicates, referenced };
 }
 
 function resolve(name: string, from: GraphBlock, blocks: readonly GraphBlock[], byName: Map<string, number[]>): Resolution {

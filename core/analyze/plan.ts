@@ -180,7 +180,7 @@ export function buildPlan(
       continue;
     }
     const slot = compileSlot(plan, spec, entry, parsed.expr, parsed.tolerance, quantityKeys, source, dataModel, references);
-    if (slot) plan.slots.set(spec.key, { ...slot, expr: parsed.expr });
+    if (slot) plan.slots.set(spec.key, slot);
   }
   for (const spec of model.params) {
     if (spec.kind === 'choice' && !(spec.key in plan.choices)) plan.choices[spec.key] = spec.default;
@@ -188,8 +188,10 @@ export function buildPlan(
   const ordered = evaluationOrder(plan, raw);
   plan.findings.push(...ordered.findings);
   const specs = keys.quantities;
+  plan.order = ordered.order;
+  plan.steps = ordered.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) }));
   // Complete once built: the evaluation reads the plan and never writes to it (core/analyze/evaluate.ts).
-  return Object.freeze({ ...plan, order: ordered.order, steps: ordered.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) })) });
+  return Object.freeze(plan);
 }
 
 function compileSlot(
@@ -259,9 +261,9 @@ function compileSlot(
   const soleIdentifier = expr.kind === 'ident' && !expr.ref && blockRefs.length === 0 ? expr.name : undefined;
   // Firmware constants are fixed for the plan: compiled in as numbers, so only block references read the
   // environment, and a name one slot reads from firmware and another as a block key cannot collide.
-  const refNames = new Set(blockRefs.map(([name]) => name));
-  const constant = (name: string) => (refNames.has(name) ? undefined : plan.externalLookups.get(name)?.value);
-  const slot: Slot = { key: spec.key, spec, entry, evaluate: compileValue(expr, constant), blockRefs, tolerance, soleIdentifier };
+  const refNames = blockRefs.length ? new Set(blockRefs.map(([name]) => name)) : undefined;
+  const constant = (name: string) => (refNames?.has(name) ? undefined : plan.externalLookups.get(name)?.value);
+  const slot: Slot = { key: spec.key, spec, entry, evaluate: compileValue(expr, constant), blockRefs, tolerance, soleIdentifier, expr };
   if (upstream.length) slot.upstream = upstream;
   return slot;
 }

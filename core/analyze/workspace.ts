@@ -28,9 +28,11 @@ export function analyzeWorkspace(
   const graphBlocks: GraphBlock[] = [];
   const slots: Array<{ doc: number; block: number }> = [];
   prepared.forEach((p, d) => {
-    if (!('finish' in p)) return;
+    if (!('finish' in p) || p.blocks.length === 0) return;
+    // One document, one options object (prepareDocument): its shown path is worked out once.
+    const path = shownPath(p.uri, p.blocks[0].context.options);
     p.blocks.forEach((b, i) => {
-      graphBlocks.push({ uri: p.uri, path: shownPath(p.uri, b.context.options), raw: b.raw, line: b.context.line });
+      graphBlocks.push({ uri: p.uri, path, raw: b.raw, line: b.context.line });
       slots.push({ doc: d, block: i });
     });
   });
@@ -59,18 +61,22 @@ export function analyzeWorkspace(
           return lookupResult(ref, outputs[resolution.target], problems[resolution.target]);
         },
       };
+      const name = item.raw.name;
+      // Results are handed on only where a reference reads them; a cache keeps them for later passes itself.
       const context: BlockContext = {
-        ...item.context,
+        uri: item.context.uri,
+        line: item.context.line,
+        options: item.context.options,
+        source: item.context.source,
         references,
-        computed: (computed, values) => {
-          if (item.raw.name !== undefined) outputs[v] = outputOf(computed, values, item.context, item.raw.name);
-        },
+        computed: name !== undefined && graph.referenced.has(v) ? (computed, values) => (outputs[v] = outputOf(computed, values, item.context, name)) : undefined,
       };
       const cache = caches.get(doc);
       const analysis = cache ? cache.analyzeBlock(item.raw, context) : analyzeBlock(item.raw, context);
       const output = outputs[v];
-      if (output) output.fingerprint = fingerprintOf(analysis, output);
-      else problems[v] = analysis.findings.some((f) => f.severity === 'error') ? 'it has errors' : 'its results could not be computed';
+      // Worked out when a dependant's cache first asks.
+      if (output) output.fingerprint = once(() => fingerprintOf(analysis, output));
+      else if (graph.referenced.has(v)) problems[v] = analysis.findings.some((f) => f.severity === 'error') ? 'it has errors' : 'its results could not be computed';
       const duplicate = graph.duplicates.get(v);
       if (duplicate) analysis.findings.unshift(duplicate);
       analyses[doc][block] = analysis;
@@ -106,7 +112,7 @@ function outputOf(block: ComputedBlock, values: Readonly<Record<string, number>>
     values,
     results: block.model.results,
     inputs,
-    fingerprint: '',
+    fingerprint: () => '',
     at(offsets: Offsets) {
       // Within one outermost evaluation the offsets do not change: a block reached by two paths answers once.
       const epoch = upstreamEpoch();
@@ -117,6 +123,18 @@ function outputOf(block: ComputedBlock, values: Readonly<Record<string, number>>
       memoEpoch = epoch;
       return memo;
     },
+  };
+}
+
+function once<T>(compute: () => T): () => T {
+  let done = false;
+  let value: T;
+  return () => {
+    if (!done) {
+      value = compute();
+      done = true;
+    }
+    return value;
   };
 }
 
