@@ -30,7 +30,12 @@ export function isMetaEntry(key: string, value: string): boolean {
 
 /** The entry that names a block's firmware file: `firmware:`, or the older `from:` with a C-family path. */
 export function firmwareEntry<E extends { key: string; valueText: string }>(entries: readonly E[]): E | undefined {
-  return entries.find((e) => e.key === 'firmware') ?? entries.find((e) => e.key === 'from' && isFirmwarePath(e.valueText));
+  let from: E | undefined;
+  for (const e of entries) {
+    if (e.key === 'firmware') return e;
+    if (e.key === 'from' && !from && isFirmwarePath(e.valueText)) from = e;
+  }
+  return from;
 }
 
 /** Levenshtein distance, bounded: returns limit + 1 once it is certain to exceed limit. */

@@ -285,6 +285,12 @@ function readStandardInput(): string {
 
 /** The process's own streams and environment: what bin/tickmark.js passes to `main`. */
 export function processIo(): Io {
+  // A reader that stops early (`tickmark check --json | head`) closes the pipe: the report ends there, quietly,
+  // with the exit code the check had, as other command-line tools do.
+  process.stdout.on('error', (cause: NodeJS.ErrnoException) => {
+    if (cause.code !== 'EPIPE') throw cause;
+    process.exit(process.exitCode ?? 0);
+  });
   return {
     out: (t) => process.stdout.write(t),
     err: (t) => process.stderr.write(t),

@@ -2,7 +2,6 @@
 // `informationUri`, a rule per diagnostic code with short and full descriptions, help text and a `helpUri`
 // into docs/blocks.md, results with relative URIs against `%SRCROOT%` (the working folder) and a
 // `partialFingerprints` entry that survives lines moving above the finding.
-import { createHash } from 'node:crypto';
 import * as path from 'node:path';
 import { pathToFileURL } from 'node:url';
 import type { Finding } from '../types';
@@ -38,6 +37,8 @@ function rule(code: string) {
 
 /** A stable identity for a finding: its code, file, block and the text it points at, not its line number. */
 function fingerprint(parts: string[], seen: Map<string, number>): string {
+  // Loaded on the first SARIF finding: every other command starts without Node's crypto module.
+  const { createHash } = require('node:crypto') as typeof import('node:crypto');
   const base = createHash('sha256').update(parts.join('\0')).digest('hex').slice(0, 32);
   const n = seen.get(base) ?? 0;
   seen.set(base, n + 1);

@@ -215,6 +215,19 @@ describe('tickmark colour', () => {
     const dumb = spawnSync(process.execPath, [bin, 'check', 'stale.md'], { cwd: dir, encoding: 'utf8', env: { ...env, FORCE_COLOR: '0' } });
     assert.doesNotMatch(dumb.stdout, /\x1b\[/);
   });
+
+  it('stops quietly when the reader closes the pipe early, keeping the exit code', () => {
+    // Common practice of command-line tools: `tool | head` ends the tool without an error of its own. The reader
+    // is the shell's `head` (coreutils), a real early-closing pipe; the report is large enough to outrun it.
+    const blocks = Array.from({ length: 400 }, (_, i) => staleNote.replace('timing tick', `timing tick-${i}`)).join('\n');
+    const dir = workspace({ 'stale.md': blocks });
+    const bin = path.resolve(__dirname, '../../bin/tickmark.js');
+    const full = spawnSync(process.execPath, [bin, 'check', '--json', 'stale.md'], { cwd: dir, encoding: 'utf8', maxBuffer: 1 << 26 });
+    assert.ok(full.stdout.length > 1 << 16, 'the report is longer than a pipe buffer');
+    const code = spawnSync('/bin/bash', ['-c', `"${process.execPath}" "${bin}" check --json stale.md | head -c 100 >/dev/null; exit \${PIPESTATUS[0]}`], { cwd: dir, encoding: 'utf8' });
+    assert.equal(code.stderr, '', 'no error or stack trace from the closed pipe');
+    assert.equal(code.status, full.status, 'the exit code is the check\'s, as without the early close');
+  });
 });
 
 describe('VS Code problem matcher $tickmark', () => {
