@@ -94,6 +94,17 @@ function optionsSignature(options: AnalyzeOptions): string {
  * analyse alike. An unnamed block is named after its line, so the line joins its signature.
  */
 function blockSignature(raw: RawBlock, context: BlockContext): string {
+  // A prepared document keeps its scanned blocks while its text stands: their signatures are worked out once.
+  const known = signatures.get(raw);
+  if (known && known.line === context.line) return known.signature;
+  const signature = signatureOf(raw, context);
+  signatures.set(raw, { line: context.line, signature });
+  return signature;
+}
+
+const signatures = new WeakMap<RawBlock, { line: number; signature: string }>();
+
+function signatureOf(raw: RawBlock, context: BlockContext): string {
   const base = raw.span.start;
   const rel = (s: Span | undefined) => (s ? [s.start - base, s.end - base] : null);
   return JSON.stringify([

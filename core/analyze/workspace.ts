@@ -215,7 +215,7 @@ export class WorkspaceAnalyzer {
     // A document whose text was prepared before and whose blocks all came from its cache reads as it did.
     const changed = results
       .filter((a) => fresh.has(a.uri) || !this.last.has(a.uri) || (this.caches.get(a.uri)?.stats.evaluated ?? 1) > 0 || a.blocks.length === 0)
-      .filter((a) => summary(this.last.get(a.uri)) !== summary(a))
+      .filter((a) => summaryOf(this.last.get(a.uri)) !== summaryOf(a))
       .map((a) => a.uri);
     this.last = analyses;
     return { analyses, changed };
@@ -242,6 +242,16 @@ export class WorkspaceAnalyzer {
   all(): DocumentAnalysis[] {
     return [...this.last.values()];
   }
+}
+
+/** Each analysis is summarised once: the next pass compares against the string kept here. */
+const summaries = new WeakMap<DocumentAnalysis, string>();
+
+function summaryOf(analysis: DocumentAnalysis | undefined): string {
+  if (!analysis) return '';
+  let known = summaries.get(analysis);
+  if (known === undefined) summaries.set(analysis, (known = summary(analysis)));
+  return known;
 }
 
 function summary(analysis: DocumentAnalysis | undefined): string {
