@@ -34,12 +34,23 @@ export function worstCase(plan: Plan, keys: string[], overrides?: Record<string,
   const ranges: Record<string, SpreadRange> = {};
   if (keys.length === 0) return ranges;
   const steps = keys.length <= gridLimit ? [-1, 0, 1] : [-1, 1];
+  // A grid with a centre step holds every one-at-a-time point: the swings are read off it, not run again.
+  const swings = steps.length === 3 ? new Map<string, Swing>() : undefined;
   if (keys.length <= cornerLimit) {
     for (const point of levels(keys.length, steps)) {
       const offsets: Record<string, number> = {};
       keys.forEach((key, i) => (offsets[key] = point[i]));
       const results = computeAt(plan, offsets, overrides);
       if (results) widen(ranges, results);
+      if (swings) {
+        const moved = point.filter((u) => u !== 0).length === 1 ? point.findIndex((u) => u !== 0) : -1;
+        if (moved >= 0) {
+          const swing = swings.get(keys[moved]) ?? {};
+          if (point[moved] < 0) swing.low = results ?? null;
+          else swing.high = results ?? null;
+          swings.set(keys[moved], swing);
+        }
+      }
     }
   } else {
     const random = mulberry32(1);
@@ -50,16 +61,23 @@ export function worstCase(plan: Plan, keys: string[], overrides?: Record<string,
       if (results) widen(ranges, results);
     }
   }
-  addShares(plan, keys, ranges, overrides);
+  addShares(plan, keys, ranges, overrides, swings);
   return ranges;
 }
 
+/** One input's results at −1 and +1 with every other input nominal; null where they break the model. */
+interface Swing {
+  low?: Record<string, number> | null;
+  high?: Record<string, number> | null;
+}
+
 /** Each input's one-at-a-time swing over the sum of swings: which part is worth buying tighter. */
-function addShares(plan: Plan, keys: string[], ranges: Record<string, SpreadRange>, overrides?: Record<string, number>): void {
+function addShares(plan: Plan, keys: string[], ranges: Record<string, SpreadRange>, overrides?: Record<string, number>, known?: Map<string, Swing>): void {
   const swings: Record<string, Record<string, number>> = {};
   for (const key of keys) {
-    const low = computeAt(plan, { [key]: -1 }, overrides);
-    const high = computeAt(plan, { [key]: 1 }, overrides);
+    const seen = known?.get(key);
+    const low = seen?.low !== undefined ? seen.low : computeAt(plan, { [key]: -1 }, overrides);
+    const high = seen?.high !== undefined ? seen.high : computeAt(plan, { [key]: 1 }, overrides);
     if (!low || !high) continue;
     for (const result of Object.keys(ranges)) {
       if (!(result in low) || !(result in high)) continue;
