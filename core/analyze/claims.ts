@@ -42,7 +42,10 @@ export function parseClaims(entry: BlockEntry, model: CircuitModel, defaultToler
       findings.push(dim.finding);
       continue;
     }
-    const toleranceProblem = dim.dim === '' ? undefined : toleranceMismatch(parsed.tolerance, parsed.toleranceDim, dim.dim, entry.key, `${describeDim(dim.dim)} here`);
+    // Only an absolute tolerance in another unit is a problem; the message is made only then.
+    const toleranceProblem = dim.dim === '' || parsed.tolerance?.kind !== 'absolute' || parsed.toleranceDim === dim.dim
+      ? undefined
+      : toleranceMismatch(parsed.tolerance, parsed.toleranceDim, dim.dim, entry.key, `${describeDim(dim.dim)} here`);
     if (toleranceProblem) {
       findings.push({ severity: 'error', code: Code.valueTolerance, message: toleranceProblem, span: parsed.toleranceSpan ?? span });
       continue;
@@ -59,10 +62,13 @@ export function parseClaims(entry: BlockEntry, model: CircuitModel, defaultToler
       continue;
     }
     let value: number;
-    try {
-      value = compileValue(parsed.expr)({});
-    } catch {
-      value = NaN;
+    if (parsed.expr.kind === 'number') value = parsed.expr.value;
+    else {
+      try {
+        value = compileValue(parsed.expr)({});
+      } catch {
+        value = NaN;
+      }
     }
     if (!Number.isFinite(value)) {
       findings.push({ severity: 'error', code: Code.valueSyntax, message: `\`${trimmed}\` does not evaluate to a number (claims cannot name constants)`, span });

@@ -46,6 +46,26 @@ class BlockBuilder {
   }
 }
 
+/**
+ * Where the next `@timing` stands, found by the native search and asked with offsets that only grow: a line without
+ * one cannot hold a header, so most lines never reach `header`.
+ */
+class TimingCursor {
+  private at: number;
+
+  /** `everywhere`: say yes to every range, so every line is read in full (the general scan tests compare with). */
+  constructor(private readonly text: string, private readonly everywhere = false) {
+    this.at = text.indexOf('@timing');
+  }
+
+  /** Whether text[from, to) holds an `@timing`; `from` never decreases between calls. */
+  within(from: number, to: number): boolean {
+    if (this.everywhere) return true;
+    if (this.at >= 0 && this.at < from) this.at = this.text.indexOf('@timing', from);
+    return this.at >= 0 && this.at < to;
+  }
+}
+
 /** A header `@timing [name]` in text[from, to), or undefined. */
 function header(text: string, from: number, to: number): BlockBuilder | undefined {
   const at = skipBlanks(text, from, to);
@@ -78,6 +98,11 @@ function onNextLineAlone(text: string, prevEnd: number, start: number, carriageR
 class LeftOutWatch {
   private ended: RawBlock | undefined;
 
+  /** Whether a block ended at a blank line is waiting to see the next line. */
+  get waiting(): boolean {
+    return this.ended !== undefined;
+  }
+
   blockEnded(block: RawBlock, builder: BlockBuilder): void {
     this.ended = builder.endedAtBlank ? block : undefined;
   }
@@ -103,7 +128,7 @@ class LeftOutWatch {
   }
 }
 
-function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carriageReturns: boolean): void {
+function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carriageReturns: boolean, timing: TimingCursor): void {
   const found: RawBlock[] = [];
   let open: BlockBuilder | undefined;
   let pos = comment.start + 2;
@@ -115,7 +140,7 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
     // The first line follows `/*` (`/**`, `/*!` too); later lines may lead with `*`.
     const from = first ? skipMarks(text, pos, to, 42) : skipStars(text, skipBlanks(text, pos, to), to);
     first = false;
-    const opened = header(text, from, to);
+    const opened = timing.within(from, to) ? header(text, from, to) : undefined;
     if (opened) {
       if (open) found.push(open.build());
       open = opened;
@@ -145,6 +170,15 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
 }
 
 export function scanC(text: string): RawBlock[] {
+  return scan(text, new TimingCursor(text));
+}
+
+/** scanC reading every comment line in full, without skipping those the `@timing` search rules out. */
+export function scanCGeneral(text: string): RawBlock[] {
+  return scan(text, new TimingCursor(text, true));
+}
+
+function scan(text: string, timing: TimingCursor): RawBlock[] {
   const blocks: RawBlock[] = [];
   const carriageReturns = text.indexOf('\r') >= 0;
   let run: BlockBuilder | undefined;
@@ -155,18 +189,24 @@ export function scanC(text: string): RawBlock[] {
       if (run) blocks.push(run.build());
       run = undefined;
       watch.reset();
-      scanBlockComment(text, comment, blocks, carriageReturns);
+      // Without `@timing` inside, a block comment opens no block, and nothing before it is left waiting.
+      if (timing.within(comment.start, comment.end)) scanBlockComment(text, comment, blocks, carriageReturns, timing);
       continue;
     }
     const from = skipMarks(text, comment.start + 2, comment.end, 47);
     const to = lineEndAt(text, comment.start, carriageReturns);
+    // A line that cannot open a block, with no block open and none waiting, changes nothing but where the run is.
+    if (!run && !watch.waiting && !timing.within(from, to)) {
+      lastLineComment = comment.end;
+      continue;
+    }
     if (run && !onNextLineAlone(text, run.lastCommentEnd, comment.start, carriageReturns)) {
       blocks.push(run.build());
       run = undefined;
     }
     // The watch only follows a run of `//` lines, each alone on the line after the previous one.
     if (!run && lastLineComment >= 0 && !onNextLineAlone(text, lastLineComment, comment.start, carriageReturns)) watch.reset();
-    const opened = header(text, from, to);
+    const opened = timing.within(from, to) ? header(text, from, to) : undefined;
     if (opened) {
       if (run) blocks.push(run.build());
       run = opened;

@@ -15,11 +15,48 @@ function isKeyChar(ch: number, first: boolean): boolean {
   return letter || (ch >= 48 && ch <= 57) || ch === 43 || ch === 45 || ch === 95 || ch === 46;
 }
 
+/** `key:` and the blanks around the colon, from the first non-blank of a line (blanks as `isBlank` in lines.ts). */
+const KEY_COLON = /[A-Za-z][A-Za-z0-9+\-_.]*(?=[ \t\f\v\u00a0\ufeff]*:)/y;
+const COLON_BLANKS = /[ \t\f\v\u00a0\ufeff]*:[ \t\f\v\u00a0\ufeff]*/y;
+const BLANK: LineReading = Object.freeze({ kind: 'blank' });
+
 /** Reads text[from, to) as `key: value`. */
 export function readEntryLine(text: string, from: number, to: number): LineReading {
   const start = skipBlanks(text, from, to);
   const end = trimEnd(text, start, to);
-  if (start === end) return { kind: 'blank' };
+  if (start === end) return BLANK;
+  // The common well-formed line in native regex steps; anything it does not take goes the long way below.
+  KEY_COLON.lastIndex = start;
+  if (KEY_COLON.test(text)) {
+    const keyEnd = KEY_COLON.lastIndex;
+    COLON_BLANKS.lastIndex = keyEnd;
+    COLON_BLANKS.test(text);
+    const valueStart = COLON_BLANKS.lastIndex;
+    if (valueStart < end) {
+      return {
+        kind: 'entry',
+        entry: {
+          key: text.slice(start, keyEnd).toLowerCase(),
+          keySpan: { start, end: keyEnd },
+          valueText: text.slice(valueStart, end),
+          valueSpan: { start: valueStart, end },
+        },
+      };
+    }
+  }
+  return readLine(text, start, end);
+}
+
+/** readEntryLine by character steps alone, which the regex steps must agree with. */
+export function readEntryLineGeneral(text: string, from: number, to: number): LineReading {
+  const start = skipBlanks(text, from, to);
+  const end = trimEnd(text, start, to);
+  if (start === end) return BLANK;
+  return readLine(text, start, end);
+}
+
+/** text[start, end), trimmed and not empty, as `key: value` or what is wrong with it. */
+function readLine(text: string, start: number, end: number): LineReading {
   // Searched within the line only: a line without `:` must not send the search on through the file.
   let colon = start;
   while (colon < end && text.charCodeAt(colon) !== 58) colon++;
@@ -64,10 +101,23 @@ export function readEntryLine(text: string, from: number, to: number): LineReadi
 export class EntryCollector {
   readonly entries: BlockEntry[] = [];
   readonly findings: Finding[] = [];
-  private readonly seen = new Map<string, BlockEntry>();
+  /** Made once a block holds many entries; a few are searched in the array. */
+  private seen: Map<string, BlockEntry> | undefined;
+
+  private firstOf(key: string): BlockEntry | undefined {
+    const entries = this.entries;
+    if (this.seen) return this.seen.get(key);
+    if (entries.length < 16) {
+      for (let i = 0; i < entries.length; i++) if (entries[i].key === key) return entries[i];
+      return undefined;
+    }
+    this.seen = new Map();
+    for (let i = entries.length - 1; i >= 0; i--) this.seen.set(entries[i].key, entries[i]);
+    return this.seen.get(key);
+  }
 
   add(entry: BlockEntry): void {
-    const first = this.seen.get(entry.key);
+    const first = this.firstOf(entry.key);
     if (first) {
       this.findings.push({
         severity: 'warning',
@@ -77,7 +127,7 @@ export class EntryCollector {
       });
       return;
     }
-    this.seen.set(entry.key, entry);
+    this.seen?.set(entry.key, entry);
     this.entries.push(entry);
   }
 

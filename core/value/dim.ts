@@ -146,6 +146,13 @@ function walk(node: ValueNode, lookup: (name: string) => Dim | undefined): State
 
 /** The dimension of a tree (47 kΩ * 100 nF → 's', 1 / (50 Hz) → 's'), or a finding at the offending operator or name. */
 export function dimOf(expr: ValueNode, lookup: (name: string) => Dim | undefined): { dim: Dim } | { finding: Finding } {
+  // One quantity or one name, as most values are: its dimension is the one written or looked up.
+  if (expr.kind === 'number') return { dim: expr.dim };
+  if (expr.kind === 'ident') {
+    const dim = lookup(expr.name);
+    if (dim !== undefined) return { dim };
+    return { finding: { severity: 'error', code: Code.identifierUnknown, message: `unknown name \`${shown(expr.name)}\``, span: expr.span } };
+  }
   try {
     return { dim: dimOfState(walk(expr, lookup)) };
   } catch (e) {

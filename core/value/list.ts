@@ -14,6 +14,11 @@ export function splitList(text: string, offset: number): Array<{ text: string; o
     while (to > from && isSpace(text[to - 1])) to--;
     pieces.push({ text: text.slice(from, to), offset: offset + from });
   };
+  // Most lists are one item: the native search says so without walking the characters.
+  if (text.indexOf(',') < 0) {
+    push(0, text.length);
+    return pieces;
+  }
   let depth = 0;
   let from = 0;
   for (let i = 0; i < text.length; i++) {
