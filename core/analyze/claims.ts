@@ -22,7 +22,9 @@ export interface Claim {
 /** Parses `expect:` or `target:` items; identifiers are not allowed in claims (they state numbers). */
 export function parseClaims(entry: BlockEntry, model: CircuitModel, defaultTolerance: number, findings: Finding[]): Claim[] {
   const claims: Claim[] = [];
-  for (const item of splitList(entry.valueText, entry.valueSpan.start)) {
+  const items = splitList(entry.valueText, entry.valueSpan.start);
+  for (let i = 0; i < items.length; i++) {
+    const item = items[i];
     const trimmed = item.text.trim();
     if (!trimmed) continue;
     const lead = item.text.indexOf(trimmed);

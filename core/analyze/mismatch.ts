@@ -12,7 +12,8 @@ import { evaluateParams } from './evaluate';
 import { solveContinuous } from './solve';
 
 export function checkClaims(analysis: BlockAnalysis, plan: Plan, claims: Claim[], overrides: Record<string, number>, context: BlockContext, findings: Finding[]): void {
-  for (const claim of claims) {
+  for (let i = 0; i < claims.length; i++) {
+    const claim = claims[i];
     const computed = analysis.values[claim.measure];
     if (computed === undefined) {
       const missing = plan.model.params.filter((p) => p.kind === 'quantity' && p.optional && !plan.entries.has(p.key)).map((p) => `\`${p.key}:\``);

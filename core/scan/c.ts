@@ -7,6 +7,9 @@ import { EntryCollector, readEntryLine } from './entry';
 import { ignoredHeaderText, readHeaderName, startsWithWord, type HeaderName } from './header';
 import { findComments, type CComment } from './c-comments';
 
+/** A comment line's lead (blanks, stars, blanks), its key and the colon with blanks around it (blanks as lines.ts). */
+const COMMENT_ENTRY = /([ \t\f\v\u00a0\ufeff]*\**[ \t\f\v\u00a0\ufeff]*)([A-Za-z][A-Za-z0-9+\-_.]*)[ \t\f\v\u00a0\ufeff]*:[ \t\f\v\u00a0\ufeff]*/y;
+
 class BlockBuilder {
   readonly collector = new EntryCollector();
   lastEnd: number;
@@ -36,6 +39,33 @@ class BlockBuilder {
     return true;
   }
 
+  /**
+   * Takes the block comment line starting at `pos` when it is `key: value` whole and the comment goes on after it,
+   * in a text without `\r`: one native regex reads the lead (blanks, stars, blanks), the key and the colon, as
+   * skipBlanks, skipStars and readEntryLine would. Returns where the next line starts, or -1 for the general way.
+   */
+  takeCommentLine(text: string, pos: number, closeAt: number): number {
+    COMMENT_ENTRY.lastIndex = pos;
+    const m = COMMENT_ENTRY.exec(text);
+    if (m === null) return -1;
+    const valueStart = COMMENT_ENTRY.lastIndex;
+    const lineEnd = text.indexOf('\n', valueStart);
+    if (lineEnd < 0 || lineEnd >= closeAt) return -1;
+    const end = trimEnd(text, valueStart, lineEnd);
+    if (end === valueStart) return -1;
+    const keyStart = pos + m[1].length;
+    const keyEnd = keyStart + m[2].length;
+    this.endedAtBlank = false;
+    this.collector.add({
+      key: m[2].toLowerCase(),
+      keySpan: { start: keyStart, end: keyEnd },
+      valueText: text.slice(valueStart, end),
+      valueSpan: { start: valueStart, end },
+    });
+    this.lastEnd = end;
+    return lineEnd + 1;
+  }
+
   build(): RawBlock {
     const span = { start: this.headerSpan.start, end: this.lastEnd };
     const { entries, findings } = this.collector;
@@ -53,14 +83,14 @@ class BlockBuilder {
 class TimingCursor {
   private at: number;
 
-  /** `everywhere`: say yes to every range, so every line is read in full (the general scan tests compare with). */
-  constructor(private readonly text: string, private readonly everywhere = false) {
+  /** `general`: say yes to every range and take no quick step, so every line is read in full (tests compare with it). */
+  constructor(private readonly text: string, readonly general = false) {
     this.at = text.indexOf('@timing');
   }
 
   /** Whether text[from, to) holds an `@timing`; `from` never decreases between calls. */
   within(from: number, to: number): boolean {
-    if (this.everywhere) return true;
+    if (this.general) return true;
     if (this.at >= 0 && this.at < from) this.at = this.text.indexOf('@timing', from);
     return this.at >= 0 && this.at < to;
   }
@@ -135,6 +165,13 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
   let first = true;
   const watch = new LeftOutWatch();
   while (pos <= comment.closeAt) {
+    if (open && !first && !carriageReturns && !timing.general) {
+      const next = open.takeCommentLine(text, pos, comment.closeAt);
+      if (next >= 0) {
+        pos = next;
+        continue;
+      }
+    }
     const lineEnd = lineEndAt(text, pos, carriageReturns);
     const to = Math.min(lineEnd, comment.closeAt);
     // The first line follows `/*` (`/**`, `/*!` too); later lines may lead with `*`.
@@ -184,7 +221,9 @@ function scan(text: string, timing: TimingCursor): RawBlock[] {
   let run: BlockBuilder | undefined;
   const watch = new LeftOutWatch();
   let lastLineComment = -1;
-  for (const comment of findComments(text)) {
+  const comments = findComments(text);
+  for (let c = 0; c < comments.length; c++) {
+    const comment = comments[c];
     if (comment.kind === 'block') {
       if (run) blocks.push(run.build());
       run = undefined;

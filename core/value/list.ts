@@ -9,14 +9,9 @@ import { parseValue } from './parse';
 /** Splits at commas outside parentheses; each piece is trimmed, with its own document offset. */
 export function splitList(text: string, offset: number): Array<{ text: string; offset: number }> {
   const pieces: Array<{ text: string; offset: number }> = [];
-  const push = (from: number, to: number): void => {
-    while (from < to && isSpace(text[from])) from++;
-    while (to > from && isSpace(text[to - 1])) to--;
-    pieces.push({ text: text.slice(from, to), offset: offset + from });
-  };
   // Most lists are one item: the native search says so without walking the characters.
   if (text.indexOf(',') < 0) {
-    push(0, text.length);
+    pushPiece(pieces, text, offset, 0, text.length);
     return pieces;
   }
   let depth = 0;
@@ -26,12 +21,19 @@ export function splitList(text: string, offset: number): Array<{ text: string; o
     if (c === '(') depth++;
     else if (c === ')') depth = Math.max(0, depth - 1);
     else if (c === ',' && depth === 0) {
-      push(from, i);
+      pushPiece(pieces, text, offset, from, i);
       from = i + 1;
     }
   }
-  push(from, text.length);
+  pushPiece(pieces, text, offset, from, text.length);
   return pieces;
+}
+
+/** text[from, to) trimmed, as a piece with its document offset. */
+function pushPiece(pieces: Array<{ text: string; offset: number }>, text: string, offset: number, from: number, to: number): void {
+  while (from < to && isSpace(text[from])) from++;
+  while (to > from && isSpace(text[to - 1])) to--;
+  pieces.push({ text: text.slice(from, to), offset: offset + from });
 }
 
 /** Evaluates a name-free constant; undefined when the tree reads a name. */

@@ -2,18 +2,13 @@
 import type { Dim, Span } from '../types';
 import { Code } from '../codes';
 import type { ParsedValue } from './ast';
-import { error, isSpace, lex } from './lexer';
+import { error, lex } from './lexer';
 import { parseExpression } from './parser';
 import { splitTolerance } from './tolerance';
 import { decodeSuffix } from './units';
 
-function trimmed(text: string): { start: number; end: number } {
-  let start = 0;
-  let end = text.length;
-  while (start < end && isSpace(text[start])) start++;
-  while (end > start && isSpace(text[end - 1])) end--;
-  return { start, end };
-}
+/** The characters `isSpace` takes, by code: space, tab, no-break space, narrow no-break space, CR, LF. */
+const isSpaceCode = (c: number): boolean => c === 32 || c === 9 || c === 0xa0 || c === 0x202f || c === 13 || c === 10;
 
 const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_]*$/;
 const HYPHENATED = /^[A-Za-z_][A-Za-z0-9_]*(?:-[A-Za-z0-9_]+)+$/;
@@ -107,20 +102,23 @@ export function parseValueGeneral(text: string, offset: number): ParsedValue {
 }
 
 function parse(text: string, offset: number, quickly: boolean): ParsedValue {
-  const { start, end } = trimmed(text);
-  const whole: Span = { start: offset + start, end: offset + end };
+  let start = 0;
+  let end = text.length;
+  while (start < end && isSpaceCode(text.charCodeAt(start))) start++;
+  while (end > start && isSpaceCode(text.charCodeAt(end - 1))) end--;
   if (start === end) {
     return { findings: [error(Code.valueSyntax, 'empty value: write a number, a name, or `?`', { start: offset, end: offset + text.length })] };
   }
-  const body = text.slice(start, end);
+  const body = start === 0 && end === text.length ? text : text.slice(start, end);
   const lead = body.charCodeAt(0);
   if (quickly && ((lead >= 48 && lead <= 57) || lead === 46)) {
     const quick = quickValue(body, offset + start);
     if (quick) return quick;
   }
   const kind = wordKind(body);
-  if (kind === 'identifier') return { word: body, expr: { kind: 'ident', name: body, span: whole }, findings: [] };
+  if (kind === 'identifier') return { word: body, expr: { kind: 'ident', name: body, span: { start: offset + start, end: offset + end } }, findings: [] };
   if (kind === 'hyphenated') return { word: body, findings: [] };
+  const whole: Span = { start: offset + start, end: offset + end };
 
   const lexed = lex(body, offset + start);
   if (lexed.findings.length > 0) return { findings: lexed.findings };

@@ -15,6 +15,7 @@ const line = fc.array(fc.constantFrom(...linePieces), { maxLength: 12 }).map((p)
 const cPieces = [
   '/* @timing t\n', '/*@timing\n', '/** @timing a b\n', ' * circuit: timer\n', ' * clock: SYS_CLOCK_HZ\n', ' * expect: 1 kHz ±1%\n', ' *\n', ' */\n',
   '*/', '// @timing x\n', '//! @timing\n', '/// reload: 10\n', '// clock: 8 MHz\n', '//\n', '// note\n', '// k:v\n', '/* 1000 */\n', '/* a: b */',
+  ' * a:\n', ' *  B : c \t\n', '**k:v\n', ' * k: v */', ' * vt+: 1 */\n', '\tclock:\u00a0x\uFEFF\n', ' * 1a: b\n', ' * a b: c\n',
   'int x = 1;\n', '\n', '\r\n', '"/* @timing */"', "'/'", 'R"(// @timing)"', '@timing', ' ', '\t', 'x: 1', '\\\n', '/*', '//',
 ];
 const cText = fc.array(fc.constantFrom(...cPieces), { maxLength: 40 }).map((p) => p.join(''));
