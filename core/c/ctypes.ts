@@ -72,20 +72,33 @@ export function typeSystem(model: DataModel, charSigned = model !== 'ilp32'): Ty
   };
 }
 
-export const maxOf = (t: IntType): bigint => (t.signed ? (1n << BigInt(t.bits - 1)) - 1n : (1n << BigInt(t.bits)) - 1n);
-export const minOf = (t: IntType): bigint => (t.signed ? -(1n << BigInt(t.bits - 1)) : 0n);
-export const fits = (v: bigint, t: IntType): boolean => v >= minOf(t) && v <= maxOf(t);
+// Range limits by width and signedness, made once: every arithmetic result is checked against them.
+const limits: Array<{ min: bigint; max: bigint } | undefined> = [];
+const limitsOf = (t: IntType): { min: bigint; max: bigint } => {
+  const key = t.bits * 2 + (t.signed ? 1 : 0);
+  return (limits[key] ??= t.signed
+    ? { min: -(1n << BigInt(t.bits - 1)), max: (1n << BigInt(t.bits - 1)) - 1n }
+    : { min: 0n, max: (1n << BigInt(t.bits)) - 1n });
+};
+export const maxOf = (t: IntType): bigint => limitsOf(t).max;
+export const minOf = (t: IntType): bigint => limitsOf(t).min;
+export const fits = (v: bigint, t: IntType): boolean => { const l = limitsOf(t); return v >= l.min && v <= l.max; };
 
 /** Integer to integer: modulo 2^N for unsigned (C11 6.3.1.3p2); gcc documents the same wrap for signed. */
 export function wrap(v: bigint, t: IntType): bigint {
   if (t.bits === 1) return v !== 0n ? 1n : 0n;
+  if (fits(v, t)) return v;
   return t.signed ? BigInt.asIntN(t.bits, v) : BigInt.asUintN(t.bits, v);
 }
 
 /** Converts a value to a type; floating to integer out of range is undefined (C11 6.3.1.4p1), so it returns an error text. */
 export function convert(x: Val, t: CType): Val | string {
   if (t.kind === 'float') return { v: typeof x.v === 'bigint' ? integerToFloating(x.v, t) : roundFloating(x.v, t), t };
-  if (typeof x.v === 'bigint') return { v: wrap(x.v, t), t };
+  if (typeof x.v === 'bigint') {
+    const v = wrap(x.v, t);
+    // Values are never changed once made, so one already of this type and in its range is the result itself.
+    return v === x.v && x.t === t ? x : { v, t };
+  }
   if (t.bits === 1) return { v: x.v !== 0 ? 1n : 0n, t };
   if (!Number.isFinite(x.v)) return `${x.v} cannot be converted to ${t.name}`;
   const truncated = BigInt(Math.trunc(x.v));

@@ -14,12 +14,16 @@ function candidates(suffix: string, decimal: boolean): string[] {
 const SUFFIX = /(?:[uU](?:ll|LL|l|L)?|(?:ll|LL|l|L)[uU]?)$/;
 
 const parsedByTypes = new WeakMap<TypeSystem, Map<string, Val | string>>();
+let lastTypes: TypeSystem | undefined;
+let lastParsed = new Map<string, Val | string>();
 
 /** `pp`: inside #if every integer acts as intmax_t or uintmax_t (C11 6.10.1p4). */
 export function parseNumber(text: string, ts: TypeSystem, pp = false): Val | string {
   // Values are never mutated, so one parse per spelling serves a whole table (firmware repeats `1u`, `8u` …).
-  let parsed = parsedByTypes.get(ts);
+  let parsed = ts === lastTypes ? lastParsed : parsedByTypes.get(ts);
   if (!parsed) parsedByTypes.set(ts, (parsed = new Map()));
+  lastTypes = ts;
+  lastParsed = parsed;
   const key = pp ? '#' + text : text;
   let found = parsed.get(key);
   if (found === undefined) parsed.set(key, (found = parseNumberUncached(text, ts, pp)));

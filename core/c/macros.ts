@@ -3,7 +3,7 @@
 import { Code } from '../codes';
 import type { Span } from '../types';
 import type { EvalError } from './evaluate';
-import { tokenize, withHide, type SourceToken } from './tokens';
+import { tokenize, tokenizeSourceRange, withHide, type SourceToken } from './tokens';
 
 export interface MacroDef {
   name: string;
@@ -18,15 +18,40 @@ export interface MacroDef {
   line: number;
 }
 
+/**
+ * An object-like macro written on one plain line (no comment, literal or splice), its replacement list tokenized
+ * when first read: a firmware file defines far more macros than a block reads.
+ */
+export class PlainObjectMacro implements MacroDef {
+  readonly params = undefined;
+  readonly variadic = false;
+  private tokens: SourceToken[] | undefined;
+
+  constructor(
+    readonly name: string, readonly uri: string, readonly nameSpan: Span, readonly span: Span, readonly line: number,
+    /** The file's text and where the replacement list stands in it (after the name, up to the newline). */
+    private readonly source: string, private readonly from: number, private readonly to: number,
+  ) {}
+
+  get body(): SourceToken[] {
+    return (this.tokens ??= tokenizeSourceRange(this.source, this.from, this.to, this.uri, []));
+  }
+}
+
 export interface ExpandLimits { maxTokens: number; maxDepth: number }
 export const DEFAULT_LIMITS: ExpandLimits = { maxTokens: 10_000, maxDepth: 200 };
 
 class Stop { constructor(readonly error: EvalError) {} }
 
+/**
+ * `inside`: the input is the replacement list of these macros, so each input identifier without a hide set of its
+ * own has this one (given to it only where it is kept or read, not copied onto every identifier beforehand).
+ */
 export function expandMacros(
   input: SourceToken[],
   lookup: (name: string) => MacroDef | undefined,
   limits: ExpandLimits = DEFAULT_LIMITS,
+  inside?: ReadonlySet<string>,
 ): SourceToken[] | EvalError {
   let produced = 0;
   const limit = (tok: SourceToken, what: string): never => {
@@ -39,23 +64,27 @@ export function expandMacros(
     const stack = tokens.slice().reverse();
     while (stack.length) {
       const t = stack.pop() as SourceToken;
-      const m = t.kind === 'ident' ? lookup(t.text) : undefined;
-      if (!m || t.hide?.has(m.name)) { out.push(t); continue; }
-      let args: SourceToken[][] | undefined;
-      if (m.params) {
-        if (stack[stack.length - 1]?.text !== '(') { out.push(t); continue; }
-        args = collectArgs(stack, m, t);
+      if (t.kind !== 'ident') { out.push(t); continue; }
+      const hidden = t.hide ?? inside;
+      const m = lookup(t.text);
+      if (!m || hidden?.has(m.name) || (m.params && stack[stack.length - 1]?.text !== '(')) {
+        out.push(t.hide || !inside ? t : withHide(t, inside));
+        continue;
       }
-      const hide = t.hide ? new Set(t.hide) : new Set<string>();
-      hide.add(m.name);
-      if (hide.size > limits.maxDepth) limit(t, `nests deeper than ${limits.maxDepth}`);
-      const replaced = substitute(m, args, (arg) => run(arg, depth + 1));
+      const args = m.params ? collectArgs(stack, m, t) : undefined;
+      // The hide set is t's with m added (t's does not hold m); made only once an identifier needs it.
+      if ((hidden?.size ?? 0) + 1 > limits.maxDepth) limit(t, `nests deeper than ${limits.maxDepth}`);
+      // An object-like macro without `##` is replaced by its body as it stands.
+      const replaced = args || hasPaste(m.body) ? substitute(m, args, (arg) => run(arg, depth + 1)) : m.body;
       produced += replaced.length;
       if (produced > limits.maxTokens) limit(t, `produced more than ${limits.maxTokens} tokens`);
+      let hide: Set<string> | undefined;
       for (let i = replaced.length - 1; i >= 0; i--) {
         const r = replaced[i];
         // Only an identifier can be expanded or reported as self-referring, so only it carries the hide set.
-        stack.push(r.kind !== 'ident' ? r : withHide(r, r.hide && r.hide.size ? new Set([...r.hide, ...hide]) : hide));
+        if (r.kind !== 'ident') { stack.push(r); continue; }
+        if (!hide) { hide = hidden ? new Set(hidden) : new Set<string>(); hide.add(m.name); }
+        stack.push(withHide(r, r.hide && r.hide.size ? new Set([...r.hide, ...hide]) : hide));
       }
     }
     return out;
@@ -67,6 +96,11 @@ export function expandMacros(
     if (e instanceof Stop) return e.error;
     throw e;
   }
+}
+
+function hasPaste(body: SourceToken[]): boolean {
+  for (let i = 0; i < body.length; i++) if (body[i].kind === 'punct' && body[i].text === '##') return true;
+  return false;
 }
 
 /** Pops `( a, b )` off the stack (top = next token); commas inside nested parentheses stay in the argument. */

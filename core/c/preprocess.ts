@@ -11,10 +11,10 @@ import type { TypeSystem } from './ctypes';
 import { DeclarationScanner, type DeclarationSink } from './declarations';
 import { noSearchDirs, resolveInclude, type IncludeEnv } from './include';
 import { isError } from './evaluate';
-import { DEFAULT_LIMITS, expandMacros, type ExpandLimits, type MacroDef } from './macros';
+import { DEFAULT_LIMITS, expandMacros, PlainObjectMacro, type ExpandLimits, type MacroDef } from './macros';
 import { findEffect, storeEffect, type HeaderEffect, type HeaderMemo } from './memo';
 import { conditionText, mergeBranches, Scope } from './scope';
-import { emptySkim, skimLine } from './skim';
+import { emptySkim, hasLoneCarriageReturn, nextSkimStop, skimLine } from './skim';
 import { lineIndex, tokenizeSourceRange, type SourceToken } from './tokens';
 
 export interface PreprocessOptions extends IncludeEnv {
@@ -63,6 +63,11 @@ interface Frame {
   /** The first condition of the group this file could not decide, as written with its place. */
   undecided?: string;
 }
+
+// `#define NAME` and a replacement list free of `\`, quotes and comments, to the line's end: group 2 is what
+// follows the name, which must be white space (else the macro is function-like, or the line is not so plain).
+const PLAIN_DEFINE = /[ \t\f\v\r]*#[ \t\f\v\r]*define[ \t\f\v\r]+([A-Za-z_$][\w$]*)((?:[ \t\f\v\r][^\n\\'"/]*(?:\/(?![/*])[^\n\\'"/]*)*)?)(?=\n|(?![\s\S]))/y;
+const isLineSpace = (c: number): boolean => c === 32 || c === 9 || c === 13 || c === 12 || c === 11;
 
 const MAX_INCLUDE_DEPTH = 200;
 const MAX_INCLUDES = 2000;
@@ -163,10 +168,47 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     const skimmed = emptySkim();
     // 1-based line of the current logical line's start, counted here so #define needs no pass of its own. The
     // skim counts \n alone; a file with a lone \r (a line end to the editor) asks the one line table instead.
-    const skimCountsLines = !/\r(?!\n)/.test(source);
+    const skimCountsLines = !hasLoneCarriageReturn(source);
     let lineNumber = 0;
     let nextLine = 1;
+    /** Whole plain lines [from, to) (see nextSkimStop), as the loop below would take them one by one. */
+    const passPlainLines = (from: number, to: number, isLive: boolean): void => {
+      let lineStart = from;
+      if (isLive) {
+        // Only the last `;`, `{` or `}` counts: each one before it only ended a statement nothing declared.
+        let boundary = to - 1;
+        for (let c = 0; boundary >= from; boundary--) {
+          c = source.charCodeAt(boundary);
+          if (c === 59 || c === 123 || c === 125) break;
+        }
+        if (boundary >= from) {
+          scanner.boundary();
+          lineStart = source.indexOf('\n', boundary) + 1;
+          pending[0] = boundary + 1;
+          pending[1] = lineStart - 1;
+          pendingLength = 2;
+        }
+      }
+      for (let nl = source.indexOf('\n', from); nl >= 0 && nl < to; nl = source.indexOf('\n', nl + 1)) {
+        nextLine++;
+        if (isLive && nl >= lineStart) {
+          pending[pendingLength++] = lineStart;
+          pending[pendingLength++] = nl;
+          lineStart = nl + 1;
+        }
+      }
+    };
+    let stop = -1;
     for (let pos = 0; pos <= source.length;) {
+      const isLive = live();
+      if (!isLive || !tokenMode) {
+        if (stop < pos) stop = nextSkimStop(source, pos);
+        const plainEnd = stop > pos ? source.lastIndexOf('\n', stop - 1) + 1 : pos;
+        if (plainEnd > pos) {
+          passPlainLines(pos, plainEnd, isLive);
+          pos = plainEnd;
+        }
+      }
       const at = skimLine(source, pos, skimmed);
       pos = at.end + 1;
       lineNumber = nextLine;
@@ -192,6 +234,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
         }
         continue;
       }
+      if (at.newlines === 0 && at.unterminatedAt < 0 && live() && definePlain(source, at.start, at.end, uri, skimCountsLines ? lineNumber : undefined)) continue;
       const line = tokenizeSourceRange(source, at.start, at.end, uri, []);
       const hash = line[0];
       const name = line[1]?.text ?? '';
@@ -262,6 +305,26 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
       line: lineNumber ?? lineOfFile.get(uri)?.(nameTok.start) ?? 1,
     };
     current.macros.set(def.name, { kind: 'def', def });
+  };
+
+  /**
+   * `#define NAME replacement` on one line with no comment, literal or splice: the macro without tokenizing the
+   * line (see PlainObjectMacro). False, having done nothing, for any other line.
+   */
+  const definePlain = (source: string, start: number, end: number, uri: string, lineNumber: number | undefined): boolean => {
+    PLAIN_DEFINE.lastIndex = start;
+    const m = PLAIN_DEFINE.exec(source);
+    if (!m || PLAIN_DEFINE.lastIndex !== end) return false;
+    const name = m[1];
+    const nameEnd = start + m[0].length - m[2].length;
+    const nameStart = nameEnd - name.length;
+    // The last token ends at the last character that is not white space (every other character is in a token).
+    let last = end;
+    while (last > nameEnd && isLineSpace(source.charCodeAt(last - 1))) last--;
+    const nameSpan = { start: nameStart, end: nameEnd };
+    const span = { start: source.indexOf('#', start), end: last };
+    current.macros.set(name, { kind: 'def', def: new PlainObjectMacro(name, uri, nameSpan, span, lineNumber ?? lineOfFile.get(uri)?.(nameStart) ?? 1, source, nameEnd, end) });
+    return true;
   };
 
   const inUndecidedBranch = (): boolean => {

@@ -44,6 +44,26 @@ function splice(text: string, i: number): number {
   return 0;
 }
 
+// What makes a line need the skim: a directive, comment, literal, splice or division sign, or a word that may be a
+// declaring keyword. `\b` also stops at `$const` or `1e+const`, which the skim reads as no keyword: erring towards a stop.
+const NEEDS_SKIM = /[#\\/'"]|\b(?:enum|const|constexpr|extern|typedef)\b/g;
+
+/**
+ * Offset of the first character at or after `from` that needs the skim, else the text's length. Every whole line
+ * before it skims as no directive and no keyword, with no splice or comment, each a logical line of its own.
+ */
+export function nextSkimStop(text: string, from: number): number {
+  NEEDS_SKIM.lastIndex = from;
+  const found = NEEDS_SKIM.exec(text);
+  return found ? found.index : text.length;
+}
+
+/** A `\r` that no `\n` follows: a line end to the editor that the skim, counting `\n` alone, does not count. */
+export function hasLoneCarriageReturn(text: string): boolean {
+  for (let i = text.indexOf('\r'); i >= 0; i = text.indexOf('\r', i + 1)) if (text.charCodeAt(i + 1) !== 10) return true;
+  return false;
+}
+
 /** Skims the logical line starting at `from` (a line start) into `out`. */
 export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedLine {
   const n = text.length;

@@ -3,14 +3,15 @@
 import { Code } from '../codes';
 import type { Finding, Span } from '../types';
 import { convert, fits, typeSystem, type CType, type DataModel, type TypeConflict, type Val } from './ctypes';
-import { evaluate, isError, type EvalError, type EvalResult } from './evaluate';
+import { evaluate, isError, type EvalContext, type EvalError, type EvalResult } from './evaluate';
 import { expandMacros, type MacroDef } from './macros';
+import { parseChar, parseNumber } from './literals';
 import { parseExpression } from './parse';
 import type { BuildConfig } from './config';
 import type { HeaderMemo } from './memo';
 import { preprocess } from './preprocess';
 import type { Declaration } from './scope';
-import { tokenizeSource, withHide, type SourceToken } from './tokens';
+import { tokenizeSource, type SourceToken } from './tokens';
 
 export interface CValue { value: bigint | number; type: string }
 
@@ -103,12 +104,12 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
   });
 
   /** Expands, parses and evaluates tokens; identifiers left after expansion resolve through the table. */
-  const evalTokens = (tokens: SourceToken[]): EvalResult => {
-    const expanded = expandMacros(tokens, macro);
+  const evalTokens = (tokens: SourceToken[], inside?: ReadonlySet<string>): EvalResult => {
+    const expanded = expandMacros(tokens, macro, undefined, inside);
     if (isError(expanded)) return expanded;
     const node = parseExpression(expanded, typeNamed);
     if ('error' in node) return { err: node.error, code: node.code ?? Code.cSyntax, tok: node.tok };
-    return evaluate(node, { ts, identifier });
+    return evaluate(node, evalContext);
   };
 
   const identifier = (tok: SourceToken): EvalResult => {
@@ -124,6 +125,8 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     return { err: r.message, code: r.code, named: true, runtime, tok: r.at ? { ...tok, uri: r.at.uri, start: r.at.span.start, end: r.at.span.end } : tok };
   };
 
+  const evalContext: EvalContext = { ts, identifier };
+
   const finish = (name: string, x: EvalResult, def: MacroDef | Declaration): ConstantResolution => {
     // Undefined behaviour names the constant it sits in, once: outer constants pass the message on as it is.
     if (isError(x) && x.code === Code.cRuntime) {
@@ -135,6 +138,14 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     if (isError(x)) return { ...fail(x.code === Code.cUndefined && !x.named ? { ...x, err: `${name}: ${x.err}` } : x), definition: definitionOf(def) };
     values.set(name, x);
     return { ok: true, value: toCValue(x), definition: definitionOf(def) };
+  };
+
+  /** A body that is one number or character constant, maybe parenthesised: what evaluating it gives, read directly. */
+  const literalValue = (body: SourceToken[]): EvalResult | undefined => {
+    const t = body.length === 1 ? body[0] : body.length === 3 && body[0].text === '(' && body[2].text === ')' ? body[1] : undefined;
+    if (!t || t.error || (t.kind !== 'number' && t.kind !== 'char')) return undefined;
+    const r = t.kind === 'number' ? parseNumber(t.text, ts) : parseChar(t.text, ts);
+    return typeof r === 'string' ? { err: r, code: Code.cSyntax, tok: t } : r;
   };
 
   const resolveDeclaration = (d: Declaration): EvalResult => {
@@ -171,9 +182,10 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     if (mb?.kind === 'def') {
       const m = mb.def;
       if (m.params) return { ok: false, code: Code.cSyntax, message: `${name} is a function-like macro; it needs arguments`, definition: definitionOf(m) };
-      const hide = new Set([name]);
-      // Only identifiers consult a hide set; numbers and punctuators are shared as they are (tokens are never mutated).
-      return finish(name, evalTokens(m.body.map((t) => (t.kind === 'ident' ? withHide(t, hide) : t))), m);
+      const literal = literalValue(m.body);
+      if (literal) return finish(name, literal, m);
+      // The body's identifiers are hidden from the macro itself (C11 6.10.3.4p2).
+      return finish(name, evalTokens(m.body, new Set([name])), m);
     }
     const db = root.decl(name);
     if (db?.kind === 'conflict') {

@@ -33,21 +33,24 @@ function punctuatorAt(text: string, i: number, c: number): string | undefined {
   return undefined;
 }
 
-function isIdentStartCode(ch: number): boolean {
-  return (ch >= 97 && ch <= 122) || (ch >= 65 && ch <= 90) || ch === 95 || ch === 36;
+// ASCII character classes in one table, so the lexer's loop asks one question per character rather than calling out.
+const IDENT_START = 1;
+const IDENT_PART = 2;
+const SPACE = 4;
+const CLASS = new Uint8Array(128);
+for (let c = 0; c < 128; c++) {
+  const letter = (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || c === 95 || c === 36;
+  const digit = c >= 48 && c <= 57;
+  CLASS[c] = (letter ? IDENT_START | IDENT_PART : 0) | (digit ? IDENT_PART : 0) | (c === 32 || c === 9 || c === 13 || c === 12 || c === 11 ? SPACE : 0);
 }
-function isIdentPartCode(ch: number): boolean {
-  return isIdentStartCode(ch) || (ch >= 48 && ch <= 57);
-}
-const isIdentStart = (c: string): boolean => c !== undefined && c.length > 0 && isIdentStartCode(c.charCodeAt(0));
-const isIdentPart = (c: string): boolean => c !== undefined && c.length > 0 && isIdentPartCode(c.charCodeAt(0));
-const isDigit = (c: string): boolean => c >= '0' && c <= '9';
+const isDigitCode = (c: number): boolean => c >= 48 && c <= 57;
 
 /** Length of a backslash-newline splice at `i` (0 when there is none). */
 function spliceLength(text: string, i: number): number {
-  if (text[i] !== '\\') return 0;
-  if (text[i + 1] === '\n') return 2;
-  if (text[i + 1] === '\r' && text[i + 2] === '\n') return 3;
+  if (text.charCodeAt(i) !== 92) return 0;
+  const next = text.charCodeAt(i + 1);
+  if (next === 10) return 2;
+  if (next === 13 && text.charCodeAt(i + 2) === 10) return 3;
   return 0;
 }
 
@@ -60,81 +63,115 @@ export function tokenize(text: string): Token[] {
  * lexer over the whole text stands between tokens (a line start), `to` a newline or the end of the text.
  */
 export function tokenizeRange<T extends Token>(text: string, from: number, to: number, tokens: T[]): T[] {
-  return lexRange(text, from, to, tokens as Token[]) as T[];
+  return lexRange(text, from, to, tokens as Token[], undefined) as T[];
 }
 
-function lexRange(text: string, from: number, to: number, tokens: Token[]): Token[] {
+/** A malformed token; `uri` set after the error, as every token of a source range has one. */
+function faulty(kind: TokenKind, text: string, start: number, end: number, error: string, uri: string | undefined): Token {
+  const t: Token = { kind, text, start, end, error };
+  if (uri !== undefined) (t as SourceToken).uri = uri;
+  return t;
+}
+
+/** `uri`: the file each token is tagged with, given to it as it is made (a token of tokenize() has none). */
+function lexRange(text: string, from: number, to: number, tokens: Token[], uri: string | undefined): Token[] {
   const n = to;
   let i = from;
   while (i < n) {
-    const c = text[i];
-    const splice = spliceLength(text, i);
-    if (splice) { i += splice; continue; }
-    if (c === '\n') { tokens.push({ kind: 'newline', text: '\n', start: i, end: i + 1 }); i++; continue; }
-    if (c === ' ' || c === '\t' || c === '\r' || c === '\f' || c === '\v') { i++; continue; }
-    if (c === '/' && text[i + 1] === '/') {
-      // A line comment ends at the newline, unless a splice continues it (C11 5.1.1.2 phase 2).
-      i += 2;
-      while (i < n && text[i] !== '\n') i += spliceLength(text, i) || 1;
+    const c = text.charCodeAt(i);
+    if (c === 92) {
+      const splice = spliceLength(text, i);
+      if (splice) { i += splice; continue; }
+    }
+    if (c === 10) {
+      tokens.push(uri === undefined ? { kind: 'newline', text: '\n', start: i, end: i + 1 } : { kind: 'newline', text: '\n', start: i, end: i + 1, uri } as SourceToken);
+      i++;
       continue;
     }
-    if (c === '/' && text[i + 1] === '*') {
-      const close = text.indexOf('*/', i + 2);
-      if (close < 0) {
-        tokens.push({ kind: 'other', text: text.slice(i, i + 2), start: i, end: text.length, error: 'unterminated comment' });
-        i = text.length;
-      } else i = close + 2;
-      continue;
-    }
-    if (isIdentStart(c)) {
-      let j = i + 1;
-      while (j < n && isIdentPartCode(text.charCodeAt(j))) j++;
-      const word = text.slice(i, j);
-      if ((text[j] === "'" || text[j] === '"') && (word === 'L' || word === 'u' || word === 'U' || word === 'u8')) {
-        j = quoted(text, j, text[j], tokens, i);
-        i = j;
+    if (c < 128 && (CLASS[c] & SPACE) !== 0) { i++; continue; }
+    if (c === 47) {
+      const next = text.charCodeAt(i + 1);
+      if (next === 47) {
+        // A line comment ends at the newline, unless a splice continues it (C11 5.1.1.2 phase 2).
+        i += 2;
+        while (i < n && text.charCodeAt(i) !== 10) i += spliceLength(text, i) || 1;
         continue;
       }
-      tokens.push({ kind: 'ident', text: word, start: i, end: j });
+      if (next === 42) {
+        const close = text.indexOf('*/', i + 2);
+        if (close < 0) {
+          tokens.push(faulty('other', text.slice(i, i + 2), i, text.length, 'unterminated comment', uri));
+          i = text.length;
+        } else i = close + 2;
+        continue;
+      }
+    }
+    if (c < 128 && (CLASS[c] & IDENT_START) !== 0) {
+      let j = i + 1;
+      while (j < n) {
+        const d = text.charCodeAt(j);
+        if (d >= 128 || (CLASS[d] & IDENT_PART) === 0) break;
+        j++;
+      }
+      const q = text.charCodeAt(j);
+      if ((q === 39 || q === 34) && (j - i === 1 ? c === 76 || c === 117 || c === 85 : j - i === 2 && c === 117 && text.charCodeAt(i + 1) === 56)) {
+        // L'x', u"…", U'x', u8"…": the prefix is part of the literal.
+        i = quoted(text, j, q, tokens, i, uri);
+        continue;
+      }
+      const word = text.slice(i, j);
+      tokens.push(uri === undefined ? { kind: 'ident', text: word, start: i, end: j } : { kind: 'ident', text: word, start: i, end: j, uri } as SourceToken);
       i = j;
       continue;
     }
-    if (isDigit(c) || (c === '.' && isDigit(text[i + 1] ?? ''))) {
+    if ((c >= 48 && c <= 57) || (c === 46 && isDigitCode(text.charCodeAt(i + 1)))) {
       // A preprocessing number (C11 6.4.8): digits, letters, dots, and e+ e- p+ p- signs.
       let j = i + 1;
       while (j < n) {
-        const d = text[j];
-        if ((d === '+' || d === '-') && /[eEpP]/.test(text[j - 1])) { j++; continue; }
-        if (isIdentPart(d) || d === '.') { j++; continue; }
+        const d = text.charCodeAt(j);
+        if (d === 43 || d === 45) {
+          const before = text.charCodeAt(j - 1);
+          if (before === 101 || before === 69 || before === 112 || before === 80) { j++; continue; }
+          break;
+        }
+        if (d === 46 || (d < 128 && (CLASS[d] & IDENT_PART) !== 0)) { j++; continue; }
         break;
       }
-      tokens.push({ kind: 'number', text: text.slice(i, j), start: i, end: j });
+      const spelled = text.slice(i, j);
+      tokens.push(uri === undefined ? { kind: 'number', text: spelled, start: i, end: j } : { kind: 'number', text: spelled, start: i, end: j, uri } as SourceToken);
       i = j;
       continue;
     }
-    if (c === "'" || c === '"') { i = quoted(text, i, c, tokens, i); continue; }
-    const p = punctuatorAt(text, i, text.charCodeAt(i));
-    if (p) { tokens.push({ kind: 'punct', text: p, start: i, end: i + p.length }); i += p.length; continue; }
-    tokens.push({ kind: 'other', text: c, start: i, end: i + 1, error: `unexpected character '${c}'` });
+    if (c === 39 || c === 34) { i = quoted(text, i, c, tokens, i, uri); continue; }
+    const p = punctuatorAt(text, i, c);
+    if (p) {
+      tokens.push(uri === undefined ? { kind: 'punct', text: p, start: i, end: i + p.length } : { kind: 'punct', text: p, start: i, end: i + p.length, uri } as SourceToken);
+      i += p.length;
+      continue;
+    }
+    tokens.push(faulty('other', text[i], i, i + 1, `unexpected character '${text[i]}'`, uri));
     i++;
   }
   return tokens;
 }
 
-/** Reads a character or string literal whose quote is at `q`; the token starts at `start` (a prefix may precede). */
-function quoted(text: string, q: number, quote: string, tokens: Token[], start: number): number {
+/** Reads a character or string literal whose quote (code `quote`) is at `q`; the token starts at `start` (a prefix may precede). */
+function quoted(text: string, q: number, quote: number, tokens: Token[], start: number, uri: string | undefined): number {
   let j = q + 1;
-  while (j < text.length && text[j] !== quote && text[j] !== '\n') {
-    if (text[j] === '\\') j += spliceLength(text, j) || 2;
+  while (j < text.length) {
+    const d = text.charCodeAt(j);
+    if (d === quote || d === 10) break;
+    if (d === 92) j += spliceLength(text, j) || 2;
     else j++;
   }
-  const kind = quote === "'" ? 'char' : 'string';
-  if (text[j] === quote) {
-    tokens.push({ kind, text: text.slice(start, j + 1), start, end: j + 1 });
+  const kind = quote === 39 ? 'char' : 'string';
+  if (text.charCodeAt(j) === quote) {
+    const spelled = text.slice(start, j + 1);
+    tokens.push(uri === undefined ? { kind, text: spelled, start, end: j + 1 } : { kind, text: spelled, start, end: j + 1, uri } as SourceToken);
     return j + 1;
   }
   const end = Math.min(j, text.length);
-  tokens.push({ kind, text: text.slice(start, end), start, end, error: `unterminated ${kind === 'char' ? 'character' : 'string'} literal` });
+  tokens.push(faulty(kind, text.slice(start, end), start, end, `unterminated ${kind === 'char' ? 'character' : 'string'} literal`, uri));
   return end;
 }
 
@@ -169,10 +206,8 @@ export function tokenizeSource(text: string, uri: string): SourceToken[] {
 
 /** tokenizeRange with each token tagged with its file, appended to `out`. */
 export function tokenizeSourceRange(text: string, from: number, to: number, uri: string, out: SourceToken[]): SourceToken[] {
-  const first = out.length;
-  // Tagged in place: a copy per token doubled the garbage of a large file.
-  lexRange(text, from, to, out as Token[]);
-  for (let k = first; k < out.length; k++) out[k].uri = uri;
+  // Tagged as each token is made: a copy per token doubled the garbage of a large file, a later tag changed its shape.
+  lexRange(text, from, to, out as Token[], uri);
   return out;
 }
 
