@@ -1,14 +1,26 @@
 // Integer, floating and character constants: value and type (ISO C11 6.4.4).
 import { fits, roundFloating, type CType, type FloatType, type IntType, type TypeSystem, type Val } from './ctypes';
 
-/** Types tried in order by suffix and base, C11 6.4.4.1p5 (binary 0b, a gcc extension, types like hex). */
-function candidates(suffix: string, decimal: boolean): string[] {
+const UNSIGNED_TYPES = ['unsigned int', 'unsigned long', 'unsigned long long'];
+const SIGNED_TYPES = ['int', 'long', 'long long'];
+const EITHER_TYPES = ['int', 'unsigned int', 'long', 'unsigned long', 'long long', 'unsigned long long'];
+
+/** Types tried in order by suffix and base, C11 6.4.4.1p5 (binary 0b, a gcc extension, types like hex), from `first`. */
+function candidates(suffix: string, decimal: boolean): { names: string[]; first: number } {
   const u = suffix.includes('u');
   const longs = suffix.includes('ll') ? 2 : suffix.includes('l') ? 1 : 0;
-  if (u) return ['unsigned int', 'unsigned long', 'unsigned long long'].slice(longs);
-  const signedOnly = ['int', 'long', 'long long'].slice(longs);
-  if (decimal) return signedOnly;
-  return ['int', 'unsigned int', 'long', 'unsigned long', 'long long', 'unsigned long long'].slice(longs * 2);
+  if (u) return { names: UNSIGNED_TYPES, first: longs };
+  if (decimal) return { names: SIGNED_TYPES, first: longs };
+  return { names: EITHER_TYPES, first: longs * 2 };
+}
+
+const isDigitCode = (c: number): boolean => c >= 48 && c <= 57;
+
+/** How many decimal digits `text` starts with. */
+function leadingDigits(text: string): number {
+  let k = 0;
+  while (k < text.length && isDigitCode(text.charCodeAt(k))) k++;
+  return k;
 }
 
 const SUFFIX = /(?:[uU](?:ll|LL|l|L)?|(?:ll|LL|l|L)[uU]?)$/;
@@ -31,14 +43,24 @@ export function parseNumber(text: string, ts: TypeSystem, pp = false): Val | str
 }
 
 function parseNumberUncached(text: string, ts: TypeSystem, pp: boolean): Val | string {
-  const isHex = /^0[xX]/.test(text);
-  if (isHex ? /[pP]/.test(text) : /^[0-9]*\.|^[0-9]+[eE]/.test(text) && !/^0[bB]/.test(text)) return parseFloating(text, ts);
-  const m = SUFFIX.exec(text);
+  // Read by character codes, as the patterns /^0[xX]/, /^[0-9]*\.|^[0-9]+[eE]/ and /^0[bB]/ would: a firmware
+  // file spells thousands of different constants, each parsed once.
+  const x = text.charCodeAt(1);
+  const zero = text.charCodeAt(0) === 48;
+  const isHex = zero && (x === 120 || x === 88);
+  const lead = leadingDigits(text);
+  const after = text.charCodeAt(lead);
+  const floating = isHex ? /[pP]/.test(text) : (after === 46 || (lead > 0 && (after === 101 || after === 69))) && !(zero && (x === 98 || x === 66));
+  if (floating) return parseFloating(text, ts);
+  // Every suffix ends in a letter: a constant ending in a digit has none.
+  const m = isDigitCode(text.charCodeAt(text.length - 1)) ? null : SUFFIX.exec(text);
   const suffix = m ? m[0].toLowerCase() : '';
   const digits = m ? text.slice(0, m.index) : text;
   let value: bigint;
   let decimal = false;
-  if (/^0[xX][0-9a-fA-F]+$/.test(digits)) value = BigInt(digits);
+  // Decimal (/^[1-9][0-9]*$/) is the common case and cannot be taken for hex, binary or octal, which start with 0.
+  if (!zero && lead === digits.length && lead > 0) { value = BigInt(digits); decimal = true; }
+  else if (/^0[xX][0-9a-fA-F]+$/.test(digits)) value = BigInt(digits);
   else if (/^0[bB][01]+$/.test(digits)) value = BigInt(digits);
   else if (/^0[0-7]*$/.test(digits)) value = digits.length > 1 ? BigInt('0o' + digits.slice(1)) : 0n;
   else if (/^[1-9][0-9]*$/.test(digits)) { value = BigInt(digits); decimal = true; }
@@ -47,8 +69,9 @@ function parseNumberUncached(text: string, ts: TypeSystem, pp: boolean): Val | s
     const t = suffix.includes('u') || !fits(value, ts.llong) ? ts.ullong : ts.llong;
     return fits(value, t) ? { v: value, t } : `integer constant '${text}' is too large for any type`;
   }
-  for (const name of candidates(suffix, decimal)) {
-    const t = ts.named.get(name) as IntType;
+  const { names, first: from } = candidates(suffix, decimal);
+  for (let k = from; k < names.length; k++) {
+    const t = ts.named.get(names[k]) as IntType;
     if (fits(value, t)) return { v: value, t };
   }
   return `integer constant '${text}' is too large for any type (C11 6.4.4.1)`;

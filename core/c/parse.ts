@@ -56,7 +56,7 @@ export function parseExpression(tokens: SourceToken[], typedefName: (name: strin
       if (type) j++;
       while (tokens[j]?.text === 'const' || tokens[j]?.text === 'volatile') j++;
     } else {
-      const name = keywordTypeName(words);
+      const name = words.length ? keywordTypeName(words) : undefined;
       const keyword = name ? typedefName(name) : undefined;
       type = keyword?.kind === 'conflict' ? undefined : keyword;
     }

@@ -219,6 +219,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
 
   /** Resolves a long run of implicit enum values oldest first, so the recursion stays one member deep. */
   const warmEnumChain = (name: string): void => {
+    if (root.macro(name)) return;
     const chain: string[] = [];
     const seen = new Set<string>();
     for (let n: string | undefined = name; n !== undefined && !memo.has(n) && !seen.has(n) && !root.macro(n);) {
