@@ -163,7 +163,8 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
   let open: BlockBuilder | undefined;
   let pos = comment.start + 2;
   let first = true;
-  const watch = new LeftOutWatch();
+  // Made when a block in this comment ends at a blank line: only then can a later line be left out.
+  let watch: LeftOutWatch | undefined;
   while (pos <= comment.closeAt) {
     if (open && !first && !carriageReturns && !timing.general) {
       const next = open.takeCommentLine(text, pos, comment.closeAt);
@@ -181,13 +182,14 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
     if (opened) {
       if (open) found.push(open.build());
       open = opened;
-      watch.reset();
+      watch?.reset();
     } else if (open && !open.take(text, from, to)) {
       const block = open.build();
       found.push(block);
-      watch.blockEnded(block, open);
+      if (open.endedAtBlank) (watch ??= new LeftOutWatch()).blockEnded(block, open);
+      else watch?.reset();
       open = undefined;
-    } else if (!open) watch.line(text, from, to);
+    } else if (!open) watch?.line(text, from, to);
     const next = nextLineAt(text, lineEnd);
     if (next <= pos || lineEnd >= comment.closeAt) break;
     pos = next;
@@ -203,7 +205,7 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
       });
     }
   }
-  out.push(...found);
+  for (let i = 0; i < found.length; i++) out.push(found[i]);
 }
 
 export function scanC(text: string): RawBlock[] {

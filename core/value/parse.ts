@@ -64,7 +64,8 @@ function quickNumber(m: RegExpExecArray, at: number, start: number): Quick | und
     dim = scale.dim;
     end += m[at + 3].length + spaced.length;
   }
-  const value = Number(`${mantissa}e${exponent}`);
+  // The same decimal as the lexer's `${mantissa}e${exponent}`, so the same double; without the exponent when it is 0.
+  const value = exponent === 0 ? Number(mantissa) : Number(`${mantissa}e${exponent}`);
   if (!Number.isFinite(value) || (value === 0 && /[1-9]/.test(mantissa))) return undefined;
   return { value, dim, end };
 }
