@@ -10,6 +10,9 @@ import { findComments, type CComment } from './c-comments';
 /** A comment line's lead (blanks, stars, blanks), its key and the colon with blanks around it (blanks as lines.ts). */
 const COMMENT_ENTRY = /([ \t\f\v\u00a0\ufeff]*\**[ \t\f\v\u00a0\ufeff]*)([A-Za-z][A-Za-z0-9+\-_.]*)[ \t\f\v\u00a0\ufeff]*:[ \t\f\v\u00a0\ufeff]*/y;
 
+/** Blanks then stars, the last of them the star of the star-slash, when a closing line holds nothing else. */
+const CLOSING_LINE = /[ \t\f\v\u00a0\ufeff]*\**/y;
+
 class BlockBuilder {
   readonly collector = new EntryCollector();
   lastEnd: number;
@@ -171,6 +174,14 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
       if (next >= 0) {
         pos = next;
         continue;
+      }
+      // The closing line, nothing but blanks and stars before the star-slash: a blank line that ends the block
+      // and the comment (a watch for left-out lines has nothing after it to see).
+      CLOSING_LINE.lastIndex = pos;
+      if (CLOSING_LINE.test(text) && CLOSING_LINE.lastIndex === comment.closeAt + 1) {
+        found.push(open.build());
+        open = undefined;
+        break;
       }
     }
     const lineEnd = lineEndAt(text, pos, carriageReturns);
