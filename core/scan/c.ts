@@ -13,24 +13,28 @@ const COMMENT_ENTRY = /([ \t\f\v\u00a0\ufeff]*\**[ \t\f\v\u00a0\ufeff]*)([A-Za-z
 /** Blanks then stars, the last of them the star of the star-slash, when a closing line holds nothing else. */
 const CLOSING_LINE = /[ \t\f\v\u00a0\ufeff]*\**/y;
 
+// Fields are declared and set in the constructor, not initialised in the class body: one block per header, and a
+// class-body initialiser is a function call of its own on each.
 class BlockBuilder {
-  readonly collector = new EntryCollector();
-  lastEnd: number;
+  declare readonly collector: EntryCollector;
+  declare readonly headerSpan: Span;
+  declare readonly name: HeaderName;
+  declare lastEnd: number;
   /** End of the last `//` comment the block took a line from. */
-  lastCommentEnd = -1;
+  declare lastCommentEnd: number;
+  /** Whether the block ended at a blank comment line (so `key: value` lines just after it were left out). */
+  declare endedAtBlank: boolean;
 
-  constructor(
-    readonly headerSpan: Span,
-    readonly name: HeaderName,
-    text: string,
-  ) {
+  constructor(headerSpan: Span, name: HeaderName, text: string) {
+    this.collector = new EntryCollector();
+    this.headerSpan = headerSpan;
+    this.name = name;
     this.lastEnd = headerSpan.end;
+    this.lastCommentEnd = -1;
+    this.endedAtBlank = false;
     const ignored = ignoredHeaderText(text, name);
     if (ignored) this.collector.findings.push(ignored);
   }
-
-  /** Whether the block ended at a blank comment line (so `key: value` lines just after it were left out). */
-  endedAtBlank = false;
 
   /** Takes the comment text text[from, to) as the next line; false when the line ends the block. */
   take(text: string, from: number, to: number): boolean {

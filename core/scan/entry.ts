@@ -99,10 +99,17 @@ function readLine(text: string, start: number, end: number): LineReading {
 
 /** Collects entries, keeping the first of a repeated key and flagging the later one. */
 export class EntryCollector {
-  readonly entries: BlockEntry[] = [];
-  readonly findings: Finding[] = [];
+  // Set in the constructor rather than by class-body initialisers: one collector per block.
+  declare readonly entries: BlockEntry[];
+  declare readonly findings: Finding[];
   /** Made once a block holds many entries; a few are searched in the array. */
-  private seen: Map<string, BlockEntry> | undefined;
+  declare private seen: Map<string, BlockEntry> | undefined;
+
+  constructor() {
+    this.entries = [];
+    this.findings = [];
+    this.seen = undefined;
+  }
 
   private firstOf(key: string): BlockEntry | undefined {
     const entries = this.entries;
