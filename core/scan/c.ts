@@ -7,8 +7,10 @@ import { EntryCollector, readEntryLine } from './entry';
 import { ignoredHeaderText, readHeaderName, startsWithWord, type HeaderName } from './header';
 import { findComments, type CComment } from './c-comments';
 
-/** A comment line's lead (blanks, stars, blanks), its key and the colon with blanks around it (blanks as lines.ts). */
-const COMMENT_ENTRY = /([ \t\f\v\u00a0\ufeff]*\**[ \t\f\v\u00a0\ufeff]*)([A-Za-z][A-Za-z0-9+\-_.]*)[ \t\f\v\u00a0\ufeff]*:[ \t\f\v\u00a0\ufeff]*/y;
+/** A comment line's lead (blanks, stars, blanks), its key, and the colon with blanks around it (blanks as lines.ts). */
+const COMMENT_LEAD = /[ \t\f\v\u00a0\ufeff]*\**[ \t\f\v\u00a0\ufeff]*/y;
+const COMMENT_KEY = /[A-Za-z][A-Za-z0-9+\-_.]*/y;
+const COMMENT_COLON = /[ \t\f\v\u00a0\ufeff]*:[ \t\f\v\u00a0\ufeff]*/y;
 
 /** Blanks then stars, the last of them the star of the star-slash, when a closing line holds nothing else. */
 const CLOSING_LINE = /[ \t\f\v\u00a0\ufeff]*\**/y;
@@ -52,19 +54,23 @@ class BlockBuilder {
    * skipBlanks, skipStars and readEntryLine would. Returns where the next line starts, or -1 for the general way.
    */
   takeCommentLine(text: string, pos: number, closeAt: number): number {
-    COMMENT_ENTRY.lastIndex = pos;
-    const m = COMMENT_ENTRY.exec(text);
-    if (m === null) return -1;
-    const valueStart = COMMENT_ENTRY.lastIndex;
+    // Three sticky tests rather than one match with groups: no match array or group strings per line.
+    COMMENT_LEAD.lastIndex = pos;
+    COMMENT_LEAD.test(text);
+    const keyStart = COMMENT_LEAD.lastIndex;
+    COMMENT_KEY.lastIndex = keyStart;
+    if (!COMMENT_KEY.test(text)) return -1;
+    const keyEnd = COMMENT_KEY.lastIndex;
+    COMMENT_COLON.lastIndex = keyEnd;
+    if (!COMMENT_COLON.test(text)) return -1;
+    const valueStart = COMMENT_COLON.lastIndex;
     const lineEnd = text.indexOf('\n', valueStart);
     if (lineEnd < 0 || lineEnd >= closeAt) return -1;
     const end = trimEnd(text, valueStart, lineEnd);
     if (end === valueStart) return -1;
-    const keyStart = pos + m[1].length;
-    const keyEnd = keyStart + m[2].length;
     this.endedAtBlank = false;
     this.collector.add({
-      key: m[2].toLowerCase(),
+      key: text.slice(keyStart, keyEnd).toLowerCase(),
       keySpan: { start: keyStart, end: keyEnd },
       valueText: text.slice(valueStart, end),
       valueSpan: { start: valueStart, end },
