@@ -38,19 +38,20 @@ function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string) {
   };
   if (analysis.spread) out.spread = withStartup(analysis.spread);
   if (analysis.solved) out.solved = analysis.solved;
-  if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => Object.assign({}, i));
+  if (analysis.identifiers.length) out.identifiers = analysis.identifiers;
   // `file` and `line` locate the referenced block; `value` is the number it supplied.
   out.references = (analysis.references ?? []).map((r) => ({ name: r.name, result: r.result, file: displayPath(r.uri, cwd), line: r.line, value: r.value }));
   out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, cwd));
   return out;
 }
 
-export function jsonReport(checked: CheckedFile[], cwd: string): string {
+/** `indent`: spaces per level for a reader at a terminal; none gives one line. */
+export function jsonReport(checked: CheckedFile[], cwd: string, indent?: number): string {
   const files = checked.map((file) => ({
     path: file.display,
     blocks: file.analysis.blocks.map((b) => block(b, file, cwd)),
     diagnostics: file.analysis.findings.map((f) => diagnostic(f, file, cwd)),
   }));
   // `version` is the shape's version: it changes only when a field changes meaning or goes away.
-  return JSON.stringify({ version: 1, files }, null, 2) + '\n';
+  return JSON.stringify({ version: 1, files }, null, indent) + '\n';
 }

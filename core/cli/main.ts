@@ -22,6 +22,8 @@ export interface Io {
   err: (text: string) => void;
   cwd: string;
   color: boolean;
+  /** Standard output is a terminal: `--json` and `--sarif` are indented for reading there, one line otherwise. */
+  terminal?: boolean;
   /** Standard input, read whole (for `check -`). */
   stdin?: () => string;
 }
@@ -212,8 +214,10 @@ function check(argv: string[], io: Io): number {
     return 2;
   }
   const checked = checkFiles(files, options, (file) => displayPath(file, io.cwd), given);
-  if (format === 'json') io.out(jsonReport(checked, io.cwd));
-  else if (format === 'sarif') io.out(sarifReport(checked, io.cwd, version));
+  // A file or a pipe gets the report on one line (half the bytes); a terminal gets it indented.
+  const indent = io.terminal ? 2 : undefined;
+  if (format === 'json') io.out(jsonReport(checked, io.cwd, indent));
+  else if (format === 'sarif') io.out(sarifReport(checked, io.cwd, version, indent));
   else if (format === 'github') io.out(githubReport(checked, io.cwd));
   else io.out(humanReport(checked, io.cwd, io.color ? ansiPaint : noPaint));
   const serious = (findings: { severity: string }[]) => findings.some((f) => f.severity !== 'info');
@@ -296,6 +300,7 @@ export function processIo(): Io {
     err: (t) => process.stderr.write(t),
     cwd: process.cwd(),
     color: wantsColor(process.env, Boolean(process.stdout.isTTY)),
+    terminal: Boolean(process.stdout.isTTY),
     stdin: readStandardInput,
   };
 }

@@ -45,7 +45,8 @@ function fingerprint(parts: string[], seen: Map<string, number>): string {
   return `${base}:${n + 1}`;
 }
 
-export function sarifReport(checked: CheckedFile[], cwd: string, version: string): string {
+/** `indent`: spaces per level for a reader at a terminal; none gives one line. */
+export function sarifReport(checked: CheckedFile[], cwd: string, version: string, indent?: number): string {
   const ruleIds: string[] = codeTable.map((info) => info.id);
   const results: unknown[] = [];
   const seen = new Map<string, number>();
@@ -100,5 +101,5 @@ export function sarifReport(checked: CheckedFile[], cwd: string, version: string
       },
     ],
   };
-  return JSON.stringify(log, null, 2) + '\n';
+  return JSON.stringify(log, null, indent) + '\n';
 }

@@ -216,6 +216,18 @@ describe('tickmark colour', () => {
     assert.doesNotMatch(dumb.stdout, /\x1b\[/);
   });
 
+  it('writes --json and --sarif on one line to a file or pipe, indented at a terminal, the same object either way', () => {
+    const dir = workspace({ 'stale.md': staleNote });
+    for (const flag of ['--json', '--sarif']) {
+      const piped = run(['check', flag, 'stale.md'], dir).out;
+      let terminal = '';
+      main(['check', flag, 'stale.md'], { out: (t) => (terminal += t), err: () => undefined, cwd: dir, color: false, terminal: true });
+      assert.equal(piped.split('\n').length, 2, `${flag}: one line and its newline`);
+      assert.match(terminal, /\n {2}"version"/, `${flag}: indented by two spaces at a terminal`);
+      assert.deepEqual(JSON.parse(piped), JSON.parse(terminal));
+    }
+  });
+
   it('stops quietly when the reader closes the pipe early, keeping the exit code', () => {
     // Common practice of command-line tools: `tool | head` ends the tool without an error of its own. The reader
     // is the shell's `head` (coreutils), a real early-closing pipe; the report is large enough to outrun it.
