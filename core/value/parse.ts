@@ -22,73 +22,83 @@ function wordKind(word: string): 'identifier' | 'hyphenated' | undefined {
 }
 
 /*
- * The shape most values have, read by one native regex: a number, then a unit against it (`16MHz`, `47k`) or after
- * spaces (`1000 Hz`), then optionally `±`, `+-` or `+/-` and a second such number. Only letters, `µ μ Ω Ω %` and
- * `bit/s` make a unit here, so the text after each unit is a space, a `±`/`+` or the end, exactly where the lexer's
- * own run of unit characters stops. Anything else, and any unit the table does not know, goes the general way.
+ * The shape most values have, read by native sticky regex tests: a number, then a unit against it (`16MHz`, `47k`)
+ * or after spaces (`1000 Hz`), then optionally `±`, `+-` or `+/-` and a second such number, and nothing else. Only
+ * letters, `µ μ Ω Ω %` and `bit/s` make a unit here, so the text after each unit is a space, a `±`/`+` or the end,
+ * exactly where the lexer's own run of unit characters stops. Anything else, and any unit the table does not know,
+ * goes the general way. Tests rather than one match with groups: no match array or group strings per value.
  */
-const UNIT = '([A-Za-z_\u00b5\u03bc\u03a9\u2126%]*bit\/s|[A-Za-z_\u00b5\u03bc\u03a9\u2126%]+)';
-const SPACE = '[ \t\u00a0\u202f\r\n]';
-const NUMBER = String.raw`(\d+(?:\.\d+)?|\.\d+)(?:[eE]([+-]?\d+))?(?:${UNIT}|(${SPACE}+)${UNIT})?`;
-const QUANTITY = new RegExp(String.raw`^${NUMBER}(?:(${SPACE}*)(±|\+-|\+\/-)(${SPACE}*)${NUMBER})?$`);
+const Q_MANTISSA = /\d+(?:\.\d+)?|\.\d+/y;
+const Q_POWER = /[eE][+-]?\d+/y;
+const Q_SPACES = /[ \t\u00a0\u202f\r\n]*/y;
+const Q_UNIT = /[A-Za-z_\u00b5\u03bc\u03a9\u2126%]*bit\/s|[A-Za-z_\u00b5\u03bc\u03a9\u2126%]+/y;
+const Q_PLUS_MINUS = /±|\+-|\+\/-/y;
 
-/** One number of the quick shape, with the span its token would have, or undefined to go the general way. */
-interface Quick {
-  value: number;
-  dim: Dim;
-  end: number;
+/** Where the number quickNumber last read ends (body index), and its dimension. */
+let quickEnd = 0;
+let quickDim: Dim = '';
+
+/** Index past the spaces at `at`. */
+function spacesEnd(body: string, at: number): number {
+  Q_SPACES.lastIndex = at;
+  Q_SPACES.test(body);
+  return Q_SPACES.lastIndex;
 }
 
 /**
- * The number read from `m[at…at+4]` (mantissa, power, glued unit, spaces, spaced unit) starting at body index
- * `start`, as the lexer reads it: the same suffix table, the same one-step decimal conversion, the same refusals.
+ * The number of the quick shape at body index `at`, as the lexer reads it (the same suffix table, the same one-step
+ * decimal conversion, the same refusals), with quickEnd and quickDim set; NaN to go the general way.
  */
-function quickNumber(m: RegExpExecArray, at: number, start: number): Quick | undefined {
-  const mantissa = m[at];
-  let exponent = m[at + 1] === undefined ? 0 : Number(m[at + 1]);
-  let end = start + mantissa.length + (m[at + 1] === undefined ? 0 : m[at + 1].length + 1);
+function quickNumber(body: string, at: number): number {
+  Q_MANTISSA.lastIndex = at;
+  if (!Q_MANTISSA.test(body)) return NaN;
+  let end = Q_MANTISSA.lastIndex;
+  const mantissa = body.slice(at, end);
+  let exponent = 0;
+  Q_POWER.lastIndex = end;
+  if (Q_POWER.test(body)) {
+    exponent = Number(body.slice(end + 1, Q_POWER.lastIndex));
+    end = Q_POWER.lastIndex;
+  }
   let dim: Dim = '';
-  const glued = m[at + 2];
-  const spaced = m[at + 4];
-  if (glued !== undefined) {
-    const scale = decodeSuffix(glued);
-    if (!scale) return undefined;
-    exponent += scale.exponent;
-    dim = scale.dim;
-    end += glued.length;
-  } else if (spaced !== undefined) {
+  const unitStart = spacesEnd(body, end);
+  Q_UNIT.lastIndex = unitStart;
+  if (Q_UNIT.test(body)) {
+    const scale = decodeSuffix(body.slice(unitStart, Q_UNIT.lastIndex));
     // A prefix alone after a space (`47 k`) is a finding: the general way says which.
-    const scale = decodeSuffix(spaced);
-    if (!scale || scale.prefixOnly) return undefined;
+    if (!scale || (unitStart > end && scale.prefixOnly)) return NaN;
     exponent += scale.exponent;
     dim = scale.dim;
-    end += m[at + 3].length + spaced.length;
+    end = Q_UNIT.lastIndex;
   }
   // The same decimal as the lexer's `${mantissa}e${exponent}`, so the same double; without the exponent when it is 0.
   const value = exponent === 0 ? Number(mantissa) : Number(`${mantissa}e${exponent}`);
-  if (!Number.isFinite(value) || (value === 0 && /[1-9]/.test(mantissa))) return undefined;
-  return { value, dim, end };
+  if (!Number.isFinite(value) || (value === 0 && /[1-9]/.test(mantissa))) return NaN;
+  quickEnd = end;
+  quickDim = dim;
+  return value;
 }
 
 /** parseValue of a trimmed body of the quick shape; undefined when the general parser must read it. */
 function quickValue(body: string, offset: number): ParsedValue | undefined {
-  const m = QUANTITY.exec(body);
-  if (!m) return undefined;
-  const first = quickNumber(m, 1, 0);
-  if (!first) return undefined;
-  const span: Span = { start: offset, end: offset + first.end };
-  if (m[7] === undefined) return { findings: [], expr: { kind: 'number', value: first.value, dim: first.dim, span } };
-  const pmStart = first.end + m[6].length;
-  const numberStart = pmStart + m[7].length + m[8].length;
-  const second = quickNumber(m, 9, numberStart);
-  // A tolerance needs a unit, and a relative one below −100 % is refused: findings the general way words.
-  if (!second || second.dim === '' || (second.dim === '%' && second.value > 1)) return undefined;
+  const value = quickNumber(body, 0);
+  if (Number.isNaN(value)) return undefined;
+  const dim = quickDim;
+  const span: Span = { start: offset, end: offset + quickEnd };
+  if (quickEnd === body.length) return { findings: [], expr: { kind: 'number', value, dim, span } };
+  const pmStart = spacesEnd(body, quickEnd);
+  Q_PLUS_MINUS.lastIndex = pmStart;
+  if (!Q_PLUS_MINUS.test(body)) return undefined;
+  const amount = quickNumber(body, spacesEnd(body, Q_PLUS_MINUS.lastIndex));
+  // Nothing after the tolerance; it needs a unit, and a relative one below −100 % is refused: findings the
+  // general way words.
+  if (Number.isNaN(amount) || quickEnd !== body.length || quickDim === '' || (quickDim === '%' && amount > 1)) return undefined;
   return {
     findings: [],
-    tolerance: { kind: second.dim === '%' ? 'relative' : 'absolute', plus: second.value, minus: second.value },
-    toleranceSpan: { start: offset + pmStart, end: offset + second.end },
-    toleranceDim: second.dim,
-    expr: { kind: 'number', value: first.value, dim: first.dim, span },
+    tolerance: { kind: quickDim === '%' ? 'relative' : 'absolute', plus: amount, minus: amount },
+    toleranceSpan: { start: offset + pmStart, end: offset + quickEnd },
+    toleranceDim: quickDim,
+    expr: { kind: 'number', value, dim, span },
   };
 }
 
