@@ -71,10 +71,11 @@ export function prepareDocument(doc: TextDocumentLike, options: AnalyzeOptions):
 
   const finish = (analyses: BlockAnalysis[]): DocumentAnalysis => {
     const analysis: DocumentAnalysis = { uri: doc.uri, blocks: [], findings: [], dependencies: [] };
-    analyses.forEach((result, i) => {
-      result.findings.unshift(...prepared[i].extra);
-      analysis.blocks.push(result);
-    });
+    for (let i = 0; i < analyses.length; i++) {
+      const extra = prepared[i].extra;
+      if (extra.length) analyses[i].findings.unshift(...extra);
+      analysis.blocks.push(analyses[i]);
+    }
     const dependencies = new Set<string>();
     for (const source of used) {
       for (const file of source.dependencies()) if (file !== doc.uri) dependencies.add(file);

@@ -78,10 +78,14 @@ export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readon
 
 /** Keys whose given value carries a tolerance. */
 export function ownTolerancedKeys(plan: Plan): string[] {
-  return [...plan.slots.values()].filter((s) => s.tolerance && (s.tolerance.plus > 0 || s.tolerance.minus > 0)).map((s) => s.key);
+  const keys: string[] = [];
+  for (const s of plan.slots.values()) if (s.tolerance && (s.tolerance.plus > 0 || s.tolerance.minus > 0)) keys.push(s.key);
+  return keys;
 }
 
 /** Every input that moves the block's results: its own toleranced keys, then the ids of toleranced inputs upstream. */
 export function tolerancedKeys(plan: Plan): string[] {
-  return [...ownTolerancedKeys(plan), ...plan.upstreamInputs.map((i) => i.id)];
+  const keys = ownTolerancedKeys(plan);
+  for (const input of plan.upstreamInputs) keys.push(input.id);
+  return keys;
 }

@@ -10,8 +10,8 @@ import type { Offsets } from './context';
 
 /** The model's input; `nominal` adds each toleranced input's relative band (spread corners move the inputs instead). */
 export function modelInput(plan: Plan, values: Readonly<Record<string, number>>, nominal = false, overrides?: Readonly<Record<string, number>>): ModelInput {
-  const input: ModelInput = { values, choices: plan.choices, lists: plan.lists, ranges: plan.ranges, name: plan.name };
-  return nominal ? { ...input, tolerances: inputTolerances(plan, values, overrides) } : input;
+  if (!nominal) return { values, choices: plan.choices, lists: plan.lists, ranges: plan.ranges, name: plan.name };
+  return { values, choices: plan.choices, lists: plan.lists, ranges: plan.ranges, name: plan.name, tolerances: inputTolerances(plan, values, overrides) };
 }
 
 /** Beyond this many toleranced inputs (2^n corners) the bands come from each key's own tolerance only. */
