@@ -1,6 +1,7 @@
 // Bundles the extension, the webview script and the in-editor test suite with esbuild.
 // `node scripts/build.mjs` for development (source maps), `--release` to minify, `--watch` to rebuild.
 import * as esbuild from 'esbuild';
+import { spawnSync } from 'node:child_process';
 import { existsSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -136,4 +137,13 @@ try {
 } catch {
   // esbuild has already printed the positioned errors.
   process.exit(1);
+}
+
+// The command line's V8 code cache (scripts/code-cache.cjs); a watch build leaves none behind, so a stale one never
+// stands beside a newer bundle (V8 would refuse it anyway).
+const codeCache = at('out/cli.code-cache');
+rmSync(codeCache, { force: true });
+if (!watch && only.some((t) => t.outfile === at('out/cli.js'))) {
+  const made = spawnSync(process.execPath, [at('scripts/code-cache.cjs')], { stdio: 'inherit' });
+  if (made.status !== 0) console.error('build: out/cli.code-cache not written; the command line compiles its bundle at each start');
 }

@@ -5,6 +5,8 @@ import { strict as assert } from 'assert';
 import * as fs from 'node:fs';
 import * as os from 'node:os';
 import * as path from 'node:path';
+import * as vm from 'node:vm';
+import Module from 'node:module';
 import { spawnSync, type SpawnSyncOptions } from 'node:child_process';
 
 const root = path.resolve(__dirname, '../..');
@@ -39,7 +41,7 @@ describe('npm package', function () {
     for (const needed of ['package.json', 'bin/tickmark.js', 'out/cli.js', 'out/server.js', 'README.md', 'LICENSE', 'CHANGELOG.md']) {
       assert.ok(files.includes(needed), `${needed} is not in the tarball: ${files.join(', ')}`);
     }
-    assert.deepEqual(files.filter((f) => /\.ts$|\.map$|^core\/|^test\/|^node_modules\//.test(f)), []);
+    assert.deepEqual(files.filter((f) => /\.ts$|\.map$|\.code-cache$|^core\/|^test\/|^node_modules\//.test(f)), []);
   });
 
   after(() => fs.rmSync(scratch, { recursive: true, force: true }));
@@ -68,6 +70,25 @@ describe('npm package', function () {
     assert.match(checked.out, /^tick\.md:6:9: warning: tick: computes 976\.6 Hz/m);
     const sarif = sh(bin, ['check', '--sarif', '.'], { cwd: work, env });
     assert.equal(JSON.parse(sarif.out).runs[0].tool.driver.version, version);
+  });
+
+  it('leaves a V8 code cache of the command line that this Node.js accepts, out of the tarball', () => {
+    // V8's own check (vm.Script cachedDataRejected) decides whether the cache is usable; bin/tickmark.js loads the
+    // bundle with it, and a check then prints exactly what a plain require of the bundle prints.
+    const cache = fs.readFileSync(path.join(root, 'out', 'cli.code-cache'));
+    const bundle = path.join(root, 'out', 'cli.js');
+    const { size, mtimeMs } = fs.statSync(bundle);
+    const newline = cache.indexOf(10);
+    assert.equal(cache.toString('latin1', 0, newline), `${size} ${mtimeMs}`, 'the cache names the bundle it was made from');
+    const script = new vm.Script(Module.wrap(fs.readFileSync(bundle, 'utf8')), { filename: bundle, cachedData: cache.subarray(newline + 1) });
+    assert.equal(script.cachedDataRejected, false);
+    const work = fs.mkdtempSync(path.join(scratch, 'cached-'));
+    fs.writeFileSync(path.join(work, 'tick.md'), note);
+    const cached = sh(process.execPath, [path.join(root, 'bin', 'tickmark.js'), 'check', '--json', '.'], { cwd: work, env });
+    const plain = sh(process.execPath, ['-e', `process.exitCode = (m => m.main(process.argv.slice(1), m.processIo()))(require(${JSON.stringify(bundle)}))`, 'check', '--json', '.'], { cwd: work, env });
+    assert.equal(cached.status, 1, cached.text);
+    assert.equal(cached.out, plain.out);
+    assert.equal(cached.err, plain.err);
   });
 
   it('runs from the tarball as npx does', () => {
