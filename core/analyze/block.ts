@@ -23,7 +23,8 @@ const dataModels = (blockKey('data-model')?.words ?? []).map((w) => w.word as Da
 export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysis {
   const findings: Finding[] = [...raw.findings];
   const entries = new Map<string, BlockEntry>();
-  for (const e of raw.entries) entries.set(e.key, e);
+  // Indexed loops on the per-block path: a cold process runs them before any optimisation removes the iterators.
+  for (let i = 0; i < raw.entries.length; i++) entries.set(raw.entries[i].key, raw.entries[i]);
   const circuitEntry = entries.get('circuit');
   const circuitId = circuitEntry?.valueText.trim().toLowerCase();
   const analysis: BlockAnalysis = {
@@ -90,7 +91,8 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   const limits = limitIssues(model, params);
   const flagged = new Set(limits.map((i) => i.key));
   const issues = [...limits, ...safeValidate(model, input).filter((i) => !flagged.has(i.key))];
-  for (const issue of issues) {
+  for (let i = 0; i < issues.length; i++) {
+    const issue = issues[i];
     const entry = entries.get(issue.key);
     // Every physics finding names its key, even where the model's sentence speaks in the trade's words.
     const message = issue.message.includes(`\`${issue.key}\``) ? issue.message : `\`${issue.key}\`: ${issue.message}`;
@@ -201,7 +203,8 @@ function unsignedSuffixHints(raw: RawBlock, model: CircuitModel): Finding[] {
   // alone is a 2 µF capacitor, as meant.
   // Linear tests only: a value line can be hostile and long.
   const params = modelKeys(model).params;
-  for (const entry of raw.entries) {
+  for (let i = 0; i < raw.entries.length; i++) {
+    const entry = raw.entries[i];
     const spec = params.get(entry.key);
     // Register keys are C (`prescaler: 2u` is the unsigned 2), so the hint is for values with a unit only.
     if (spec?.kind === 'quantity' && isRegisterKey(spec)) continue;

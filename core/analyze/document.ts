@@ -50,7 +50,8 @@ export function prepareDocument(doc: TextDocumentLike, options: AnalyzeOptions):
   const used = new Set<IdentifierSource>();
   const prepared: PreparedBlock[] = [];
 
-  for (const raw of blocks) {
+  for (let b = 0; b < blocks.length; b++) {
+    const raw = blocks[b];
     let source: IdentifierSource = own ?? noIdentifiers;
     const extra: Finding[] = [];
     const firmware = firmwareEntry(raw.entries);

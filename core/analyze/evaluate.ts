@@ -16,7 +16,11 @@ function applyTolerance(value: number, tolerance: Tolerance, u: number): number 
  */
 const envs = new WeakMap<Plan, Record<string, number>>();
 
+/** Shared by every plan whose values read no block reference: nothing writes to it or reads from it. */
+const noEnv: Record<string, number> = Object.freeze(Object.create(null));
+
 function envOf(plan: Plan): Record<string, number> {
+  if (!plan.readsEnv) return noEnv;
   let env = envs.get(plan);
   if (!env) envs.set(plan, (env = Object.create(null) as Record<string, number>));
   return env;
@@ -52,7 +56,9 @@ export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readon
   if (nesting.depth === 0) nesting.epoch++;
   const values: Record<string, number> = {};
   const env = envOf(plan);
-  for (const { key, slot, spec } of plan.steps) {
+  const steps = plan.steps;
+  for (let s = 0; s < steps.length; s++) {
+    const { key, slot, spec } = steps[s];
     let value: number;
     if (overrides && key in overrides) value = overrides[key];
     else if (slot) {

@@ -36,7 +36,8 @@ export interface ReferenceGraph {
 /** References written in a block's circuit values (claims and settings state numbers, not references). */
 export function blockReferences(raw: RawBlock): BlockRef[] {
   const refs: BlockRef[] = [];
-  for (const entry of raw.entries) {
+  for (let i = 0; i < raw.entries.length; i++) {
+    const entry = raw.entries[i];
     if (isMetaEntry(entry.key, entry.valueText) || !entry.valueText.includes('@')) continue;
     refs.push(...referencesIn(entry.valueText, entry.valueSpan.start));
   }

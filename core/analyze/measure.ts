@@ -59,7 +59,8 @@ export function inputTolerances(plan: Plan, values: Readonly<Record<string, numb
 /** Limits from the parameter table (positive parts, integer registers), before the model's own physics. */
 export function limitIssues(model: CircuitModel, values: Readonly<Record<string, number>>): ModelIssue[] {
   const issues: ModelIssue[] = [];
-  for (const spec of model.params) {
+  for (let i = 0; i < model.params.length; i++) {
+    const spec = model.params[i];
     if (spec.kind !== 'quantity' || !(spec.key in values)) continue;
     const value = values[spec.key];
     // An integer key is a register (or a count such as stages): its limits are the register's range.

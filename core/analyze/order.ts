@@ -27,7 +27,8 @@ export function evaluationOrder(plan: OrderInput, raw: RawBlock): { order: strin
   let progress = true;
   while (progress) {
     progress = false;
-    for (const spec of quantitySpecs) {
+    for (let i = 0; i < quantitySpecs.length; i++) {
+      const spec = quantitySpecs[i];
       if (done.has(spec.key)) continue;
       const slot = plan.slots.get(spec.key);
       if (unknownKeys.has(spec.key)) {
@@ -52,7 +53,8 @@ export function evaluationOrder(plan: OrderInput, raw: RawBlock): { order: strin
       }
     }
   }
-  for (const spec of quantitySpecs) {
+  for (let i = 0; i < quantitySpecs.length; i++) {
+    const spec = quantitySpecs[i];
     if (done.has(spec.key)) continue;
     const slot = plan.slots.get(spec.key);
     if (slot) {

@@ -58,6 +58,8 @@ export interface Plan {
   upstreamInputs: UpstreamInput[];
   /** The keys in `order`, each resolved to its slot or its default's spec: what evaluateParams replays. */
   steps: readonly Step[];
+  /** Some slot reads another key of the block or another block's result (through the evaluation's environment). */
+  readsEnv: boolean;
 }
 
 /** One key of the evaluation order: its given value (slot) or, without one, its spec for the default. */
@@ -116,10 +118,12 @@ export function buildPlan(
     references: [],
     upstreamInputs: [],
     steps: [],
+    readsEnv: false,
   };
   const quantityKeys = keys.quantities;
 
-  for (const entry of raw.entries) {
+  for (let i = 0; i < raw.entries.length; i++) {
+    const entry = raw.entries[i];
     if (isMetaEntry(entry.key, entry.valueText)) continue;
     const spec = keys.params.get(entry.key);
     if (!spec) {
@@ -182,7 +186,8 @@ export function buildPlan(
     const slot = compileSlot(plan, spec, entry, parsed.expr, parsed.tolerance, quantityKeys, source, dataModel, references);
     if (slot) plan.slots.set(spec.key, slot);
   }
-  for (const spec of model.params) {
+  for (let i = 0; i < model.params.length; i++) {
+    const spec = model.params[i];
     if (spec.kind === 'choice' && !(spec.key in plan.choices)) plan.choices[spec.key] = spec.default;
   }
   const ordered = evaluationOrder(plan, raw);
@@ -190,6 +195,7 @@ export function buildPlan(
   const specs = keys.quantities;
   plan.order = ordered.order;
   plan.steps = ordered.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) }));
+  for (const slot of plan.slots.values()) if (slot.blockRefs.length || slot.upstream) plan.readsEnv = true;
   // Complete once built: the evaluation reads the plan and never writes to it (core/analyze/evaluate.ts).
   return Object.freeze(plan);
 }
@@ -207,10 +213,11 @@ function compileSlot(
 ): Slot | undefined {
   const blockRefs: Array<[string, string]> = [];
   const upstream: Array<[string, BlockOutput, string]> = [];
-  const upstreamDims = new Map<string, Dim>();
+  let upstreamDims: Map<string, Dim> | undefined;
   let failed = false;
   const idents = identifiersOf(expr);
-  for (const ident of idents) {
+  for (let i = 0; i < idents.length; i++) {
+    const ident = idents[i];
     if (ident.ref) {
       const found = references.resolve(ident.ref);
       if (!found.ok) {
@@ -218,7 +225,7 @@ function compileSlot(
         failed = true;
         continue;
       }
-      upstreamDims.set(ident.name, found.dim);
+      (upstreamDims ??= new Map()).set(ident.name, found.dim);
       if (!upstream.some(([name]) => name === ident.name)) upstream.push([ident.name, found.output, found.result]);
       const { output } = found;
       plan.references.push({ name: output.name, result: found.result, uri: output.uri, line: output.line, value: output.values[found.result], circuit: output.circuit, span: ident.span, key: spec.key });
@@ -242,7 +249,7 @@ function compileSlot(
   }
   if (failed) return undefined;
   const dim = dimOf(expr, (name) => {
-    const fromBlock = upstreamDims.get(name);
+    const fromBlock = upstreamDims?.get(name);
     if (fromBlock !== undefined) return fromBlock;
     const key = name.toLowerCase();
     if (quantityKeys.has(key) && key !== spec.key) return quantityKeys.get(key)!.dim;

@@ -98,8 +98,10 @@ export function voltageCautions(input: ModelInput, keys: readonly string[]): str
 const safetyWords = /watchdog|\bwdt\b|\bwdg\b|reset|\bpor\b|\bnrst\b|brown-?out|supervis|safety|interlock|e-?stop|brake/i;
 
 /** Whether a block's name says its timing guards people or property (watchdog, reset, interlock …). */
+const nameSeparators = /[-_]/g;
+
 export function isSafetyName(name: string | undefined): boolean {
-  return name !== undefined && safetyWords.test(name.replace(/[-_]/g, ' '));
+  return name !== undefined && safetyWords.test(name.replace(nameSeparators, ' '));
 }
 
 export const safetyCaution =
