@@ -13,7 +13,7 @@ interface Entry {
   /** Every identifier the analysis asked for, with the answer it got. */
   lookups: Array<{ name: string; dataModel: DataModelName; answer: string; expression?: boolean }>;
   /** Every block reference it resolved, with the upstream block's fingerprint (or the problem) it got. */
-  references: Array<{ ref: BlockRef; answer: string }>;
+  references: Array<{ ref: BlockRef; answer: ReferenceAnswer }>;
   /** The computed block its results came from, handed to the workspace again when the analysis is reused. */
   computed?: [ComputedBlock, Readonly<Record<string, number>>];
   generation: number;
@@ -142,14 +142,22 @@ function recordingSource(inner: IdentifierSource): { source: IdentifierSource; l
   return { source, lookups };
 }
 
-function referenceAnswer(found: ReferenceLookup): string {
-  if (!found.ok) return JSON.stringify([found.code, found.message]);
-  return JSON.stringify([found.output.fingerprint(), found.result]);
+/** What a reference resolved to, compared field by field: an upstream fingerprint is long, and copying it costs. */
+type ReferenceAnswer = { fingerprint: string; result: string } | { code: string; message: string };
+
+function referenceAnswer(found: ReferenceLookup): ReferenceAnswer {
+  if (!found.ok) return { code: found.code, message: found.message };
+  return { fingerprint: found.output.fingerprint(), result: found.result };
+}
+
+function sameAnswer(a: ReferenceAnswer, b: ReferenceAnswer): boolean {
+  if ('fingerprint' in a) return 'fingerprint' in b && a.result === b.result && a.fingerprint === b.fingerprint;
+  return 'code' in b && a.code === b.code && a.message === b.message;
 }
 
 function referencesHold(entry: Entry, source: ReferenceSource | undefined): boolean {
   if (!source) return entry.references.length === 0;
-  return entry.references.every((r) => referenceAnswer(source.resolve(r.ref)) === r.answer);
+  return entry.references.every((r) => sameAnswer(referenceAnswer(source.resolve(r.ref)), r.answer));
 }
 
 function answersHold(entry: Entry, source: IdentifierSource): boolean {

@@ -44,6 +44,8 @@ export function evaluateIn(table: ConstantTable, exprText: string): ExpressionLo
   return { ok: true, value, identifiers };
 }
 
+const plainDecimal = /^\s*(?:0|[1-9]\d{0,8})\s*$/;
+
 /** A tolerance or a `?` or block reference belongs to the value language; so does a lone name (it resolves the same). */
 const VALUE_LANGUAGE = /[?@±]|\+-\s*[\d.]+\s*(?:%|ppm)\s*$|%\s*$/;
 
@@ -58,6 +60,9 @@ export function registerValue(
   if (!isRegisterKey(spec)) return undefined;
   const text = entry.valueText;
   if (VALUE_LANGUAGE.test(text) || /^\s*[A-Za-z_]\w*\s*$/.test(text)) return undefined;
+  // A plain decimal number (no suffix, no leading zero, which C would read as octal) is that number in every data
+  // model: C gives it the first of int, long, long long that holds it, never another value.
+  if (plainDecimal.test(text)) return { value: Number(text), identifiers: [] };
   const tokens = tokenize(text);
   if (tokens.some((t) => t.kind === 'ident' && t.text.toLowerCase() !== spec.key && blockKeys.has(t.text.toLowerCase()))) return undefined;
   const r = source.evaluate(text, dataModel);

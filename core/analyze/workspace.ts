@@ -215,7 +215,7 @@ export class WorkspaceAnalyzer {
     // A document whose text was prepared before and whose blocks all came from its cache reads as it did.
     const changed = results
       .filter((a) => fresh.has(a.uri) || !this.last.has(a.uri) || (this.caches.get(a.uri)?.stats.evaluated ?? 1) > 0 || a.blocks.length === 0)
-      .filter((a) => summaryOf(this.last.get(a.uri)) !== summaryOf(a))
+      .filter((a) => !readsAlike(this.last.get(a.uri), a))
       .map((a) => a.uri);
     this.last = analyses;
     return { analyses, changed };
@@ -244,17 +244,41 @@ export class WorkspaceAnalyzer {
   }
 }
 
-/** Each analysis is summarised once: the next pass compares against the string kept here. */
-const summaries = new WeakMap<DocumentAnalysis, string>();
-
-function summaryOf(analysis: DocumentAnalysis | undefined): string {
-  if (!analysis) return '';
-  let known = summaries.get(analysis);
-  if (known === undefined) summaries.set(analysis, (known = summary(analysis)));
-  return known;
+/**
+ * Whether a document reads as it did: the same findings and, block by block, the same name, line, numbers,
+ * spread, findings and references. Compared as their JSON would be (an absent and an undefined property alike,
+ * NaN and infinities alike, key order aside), without writing the JSON.
+ */
+function readsAlike(before: DocumentAnalysis | undefined, after: DocumentAnalysis): boolean {
+  if (!before || before.blocks.length !== after.blocks.length || !sameData(before.findings, after.findings)) return false;
+  for (let i = 0; i < after.blocks.length; i++) {
+    const a = before.blocks[i];
+    const b = after.blocks[i];
+    if (a.name !== b.name || a.line !== b.line || !sameData(a.params, b.params) || !sameData(a.values, b.values)) return false;
+    if (!sameData(a.spread, b.spread) || !sameData(a.findings, b.findings) || !sameData(a.references, b.references)) return false;
+  }
+  return true;
 }
 
-function summary(analysis: DocumentAnalysis | undefined): string {
-  if (!analysis) return '';
-  return JSON.stringify([analysis.findings, analysis.blocks.map((b) => [b.name, b.line, b.params, b.values, b.spread ?? null, b.findings, b.references ?? null])]);
+function sameData(a: unknown, b: unknown): boolean {
+  if (a === b) return true;
+  // JSON writes NaN and the infinities as null, and leaves undefined out.
+  const absent = (x: unknown) => x === undefined || x === null || (typeof x === 'number' && !Number.isFinite(x));
+  if (absent(a) || absent(b)) return absent(a) && absent(b);
+  if (typeof a !== 'object' || typeof b !== 'object') return false;
+  if (Array.isArray(a) || Array.isArray(b)) {
+    if (!Array.isArray(a) || !Array.isArray(b) || a.length !== b.length) return false;
+    for (let i = 0; i < a.length; i++) if (!sameData(a[i], b[i])) return false;
+    return true;
+  }
+  const x = a as Record<string, unknown>;
+  const y = b as Record<string, unknown>;
+  let count = 0;
+  for (const key in x) {
+    if (x[key] === undefined || typeof x[key] === 'function') continue;
+    count++;
+    if (!sameData(x[key], y[key])) return false;
+  }
+  for (const key in y) if (y[key] !== undefined && typeof y[key] !== 'function') count--;
+  return count === 0;
 }
