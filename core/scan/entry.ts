@@ -32,17 +32,7 @@ export function readEntryLine(text: string, from: number, to: number): LineReadi
     COLON_BLANKS.lastIndex = keyEnd;
     COLON_BLANKS.test(text);
     const valueStart = COLON_BLANKS.lastIndex;
-    if (valueStart < end) {
-      return {
-        kind: 'entry',
-        entry: {
-          key: text.slice(start, keyEnd).toLowerCase(),
-          keySpan: { start, end: keyEnd },
-          valueText: text.slice(valueStart, end),
-          valueSpan: { start: valueStart, end },
-        },
-      };
-    }
+    if (valueStart < end) return entryReading(text, start, keyEnd, valueStart, end);
   }
   return readLine(text, start, end);
 }
@@ -86,6 +76,11 @@ function readLine(text: string, start: number, end: number): LineReading {
       message: `\`${text.slice(start, keyEnd)}\` has no value after \`:\`.`,
     };
   }
+  return entryReading(text, start, keyEnd, valueStart, end);
+}
+
+/** The entry of a well-formed line: key text[start, keyEnd) lower-cased, value text[valueStart, end). */
+function entryReading(text: string, start: number, keyEnd: number, valueStart: number, end: number): LineReading {
   return {
     kind: 'entry',
     entry: {
