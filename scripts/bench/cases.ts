@@ -26,26 +26,32 @@ export function firmwareScan(): Row[] {
   const folder = fs.mkdtempSync(path.join(os.tmpdir(), 'tickmark-bench-'));
   const file = path.join(folder, 'firmware.c');
   fs.writeFileSync(file, text);
-  const wall = (args: string[]) => {
-    const runs: number[] = [];
-    for (let i = 0; i < 4; i++) {
-      const start = performance.now();
-      const run = spawnSync(process.execPath, args, { cwd: folder, encoding: 'utf8', maxBuffer: 1 << 28 });
-      if (i > 0) runs.push(performance.now() - start);
-      if (run.status === 2 || run.error) throw new Error(`${args.join(' ')} failed: ${run.stderr || run.error}`);
-    }
-    return median(runs);
+  const once = (args: string[]): number => {
+    const start = performance.now();
+    const run = spawnSync(process.execPath, args, { cwd: folder, encoding: 'utf8', maxBuffer: 1 << 28 });
+    if (run.status === 2 || run.error) throw new Error(`${args.join(' ')} failed: ${run.stderr || run.error}`);
+    return performance.now() - start;
   };
   // bin/tickmark.js runs the bundle out/cli.js when it is current, as CI and the packaged copy do.
   execFileSync(process.execPath, [path.join(root, 'scripts', 'build.mjs')], { cwd: root, stdio: 'pipe' });
-  const cli = wall([path.join(root, 'bin', 'tickmark.js'), 'check', '--json', file]);
+  const check = [path.join(root, 'bin', 'tickmark.js'), 'check', '--json', file];
   const pattern = String.raw`/@timing\b|^\s*\*?\s*[A-Za-z][\w+.-]*\s*:\s*\S.*$/gm`;
-  const bare = wall(['-e', `const t=require('fs').readFileSync(${JSON.stringify(file)},'utf8');let n=0;const p=${pattern};while(p.exec(t)!==null)n++;console.log(JSON.stringify({n}))`]);
+  const regexOnly = ['-e', `const t=require('fs').readFileSync(${JSON.stringify(file)},'utf8');let n=0;const p=${pattern};while(p.exec(t)!==null)n++;console.log(JSON.stringify({n}))`];
+  // Alternating pairs, so both sides meet the same moment of a shared machine; the first pair warms the disk cache.
+  const cliRuns: number[] = [];
+  const bareRuns: number[] = [];
+  for (let i = 0; i < 8; i++) {
+    const c = once(check);
+    const b = once(regexOnly);
+    if (i > 0) { cliRuns.push(c); bareRuns.push(b); }
+  }
+  const cli = median(cliRuns);
+  const bare = median(bareRuns);
   fs.rmSync(folder, { recursive: true, force: true });
   return [
     { figure: `1a scan+evaluate 100k-line C, 2,000 blocks (${size})`, value: ms(scan), target: '—', met: evaluated === 2_000, note: `${evaluated} blocks computed; bare regex ${ms(regex)}` },
     { figure: '1b   ratio to a bare regex pass, in process', value: times(scan / regex), target: '≤ 2×', met: scan / regex <= 2 },
-    { figure: '1c   ratio whole process: check --json vs node -e regex', value: times(cli / bare), target: '≤ 3×', met: cli / bare <= 3, note: `${ms(cli)} vs ${ms(bare)}` },
+    { figure: '1c   ratio whole process: check --json vs node -e regex', value: times(cli / bare), target: '≤ 3×', met: cli / bare <= 3, note: `${ms(cli)} vs ${ms(bare)}, medians of 7 alternating runs` },
   ];
 }
 
