@@ -38,7 +38,8 @@ function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string) {
   };
   if (analysis.spread) out.spread = withStartup(analysis.spread);
   if (analysis.solved) out.solved = analysis.solved;
-  if (analysis.identifiers.length) out.identifiers = analysis.identifiers;
+  // `uri` is where the constant is defined as the analysis read it; `file` is that path as `path` shows a file.
+  if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => ({ ...i, file: displayPath(i.uri, cwd) }));
   // `file` and `line` locate the referenced block; `value` is the number it supplied.
   out.references = (analysis.references ?? []).map((r) => ({ name: r.name, result: r.result, file: displayPath(r.uri, cwd), line: r.line, value: r.value }));
   out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, cwd));

@@ -108,6 +108,10 @@ describe('tickmark check for CI', () => {
     const tick = json.files.find((f: { path: string }) => f.path === 'fw/tick.c');
     const inHeader = [...tick.diagnostics, ...tick.blocks[0].diagnostics].find((d: { file?: string }) => d.file);
     assert.equal(inHeader.file, 'fw/board.h');
+    // The constant a block read, with its defining file shown as `path` shows files (its absolute `uri` beside it).
+    const [clock] = tick.blocks[0].identifiers;
+    assert.deepEqual([clock.name, clock.value, clock.file, clock.line], ['CLK', 16e6, 'fw/board.h', 2]);
+    assert.equal(clock.uri, path.join(dir, 'fw', 'board.h'));
   });
 
   it('takes one output format and names a wrong one', () => {
