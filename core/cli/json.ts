@@ -28,7 +28,17 @@ function withStartup<T>(record: Record<string, T>): Record<string, T> {
   return 'first-edge' in record ? { ...record, startup: record['first-edge'] } : record;
 }
 
-function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string) {
+/** `displayPath` for one report: it names the same few headers thousands of times, each made relative once. */
+function pathShower(cwd: string): (uri: string) => string {
+  const shown = new Map<string, string>();
+  return (uri) => {
+    let path = shown.get(uri);
+    if (path === undefined) shown.set(uri, (path = displayPath(uri, cwd)));
+    return path;
+  };
+}
+
+function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string, shownPath: (uri: string) => string) {
   const out: Record<string, unknown> = {
     name: analysis.name,
     line: analysis.line,
@@ -39,18 +49,19 @@ function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string) {
   if (analysis.spread) out.spread = withStartup(analysis.spread);
   if (analysis.solved) out.solved = analysis.solved;
   // `uri` is where the constant is defined as the analysis read it; `file` is that path as `path` shows a file.
-  if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => ({ ...i, file: displayPath(i.uri, cwd) }));
+  if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => ({ name: i.name, value: i.value, uri: i.uri, line: i.line, file: shownPath(i.uri) }));
   // `file` and `line` locate the referenced block; `value` is the number it supplied.
-  out.references = (analysis.references ?? []).map((r) => ({ name: r.name, result: r.result, file: displayPath(r.uri, cwd), line: r.line, value: r.value }));
+  out.references = (analysis.references ?? []).map((r) => ({ name: r.name, result: r.result, file: shownPath(r.uri), line: r.line, value: r.value }));
   out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, cwd));
   return out;
 }
 
 /** `indent`: spaces per level for a reader at a terminal; none gives one line. */
 export function jsonReport(checked: CheckedFile[], cwd: string, indent?: number): string {
+  const shownPath = pathShower(cwd);
   const files = checked.map((file) => ({
     path: file.display,
-    blocks: file.analysis.blocks.map((b) => block(b, file, cwd)),
+    blocks: file.analysis.blocks.map((b) => block(b, file, cwd, shownPath)),
     diagnostics: file.analysis.findings.map((f) => diagnostic(f, file, cwd)),
   }));
   // `version` is the shape's version: it changes only when a field changes meaning or goes away.
