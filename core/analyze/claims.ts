@@ -4,7 +4,7 @@ import type { CircuitModel } from '../circuits/model';
 import { compileValue, dimOf, parseValue, splitList } from '../value';
 import { Code } from '../codes';
 import { measureFor } from './measure';
-import { describeDim, toleranceMismatch } from './dims';
+import { toleranceMismatch } from './dims';
 
 export interface Claim {
   measure: string;
@@ -44,10 +44,7 @@ export function parseClaims(entry: BlockEntry, model: CircuitModel, defaultToler
       findings.push(dim.finding);
       continue;
     }
-    // Only an absolute tolerance in another unit is a problem; the message is made only then.
-    const toleranceProblem = dim.dim === '' || parsed.tolerance?.kind !== 'absolute' || parsed.toleranceDim === dim.dim
-      ? undefined
-      : toleranceMismatch(parsed.tolerance, parsed.toleranceDim, dim.dim, entry.key, `${describeDim(dim.dim)} here`);
+    const toleranceProblem = dim.dim === '' ? undefined : toleranceMismatch(parsed.tolerance, parsed.toleranceDim, dim.dim, entry.key, true);
     if (toleranceProblem) {
       findings.push({ severity: 'error', code: Code.valueTolerance, message: toleranceProblem, span: parsed.toleranceSpan ?? span });
       continue;

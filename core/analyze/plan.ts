@@ -178,7 +178,7 @@ export function buildPlan(
       continue;
     }
     if (!parsed.expr || parsed.findings.some((f) => f.severity === 'error')) continue;
-    const toleranceProblem = toleranceMismatch(parsed.tolerance, parsed.toleranceDim, spec.dim, entry.key, describeDim(spec.dim));
+    const toleranceProblem = toleranceMismatch(parsed.tolerance, parsed.toleranceDim, spec.dim, entry.key);
     if (toleranceProblem) {
       plan.findings.push(error(Code.valueTolerance, toleranceProblem, parsed.toleranceSpan ?? entry.valueSpan));
       continue;

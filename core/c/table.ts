@@ -76,10 +76,15 @@ const EXPRESSION_URI = '<expression>';
 export const toNumber = (v: CValue): number => Number(v.value);
 const toCValue = (x: Val): CValue => ({ value: x.v, type: x.t.name });
 
+/** The one number or character constant a macro body or initializer is, maybe parenthesised; else undefined. */
+function soleLiteral(body: SourceToken[]): SourceToken | undefined {
+  const t = body.length === 1 ? body[0] : body.length === 3 && body[0].text === '(' && body[2].text === ')' ? body[1] : undefined;
+  return t && (t.kind === 'number' || t.kind === 'char') ? t : undefined;
+}
+
 function literalOf(body: SourceToken[]): ConstantDefinition['literal'] {
-  const inner = body.length === 3 && body[0].text === '(' && body[2].text === ')' ? [body[1]] : body;
-  if (inner.length !== 1 || (inner[0].kind !== 'number' && inner[0].kind !== 'char')) return undefined;
-  return { span: { start: inner[0].start, end: inner[0].end }, text: inner[0].text };
+  const t = soleLiteral(body);
+  return t && { span: { start: t.start, end: t.end }, text: t.text };
 }
 
 function definitionOf(d: MacroDef | Declaration): ConstantDefinition {
@@ -142,8 +147,8 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
 
   /** A body that is one number or character constant, maybe parenthesised: what evaluating it gives, read directly. */
   const literalValue = (body: SourceToken[]): EvalResult | undefined => {
-    const t = body.length === 1 ? body[0] : body.length === 3 && body[0].text === '(' && body[2].text === ')' ? body[1] : undefined;
-    if (!t || t.error || (t.kind !== 'number' && t.kind !== 'char')) return undefined;
+    const t = soleLiteral(body);
+    if (!t || t.error) return undefined;
     const r = t.kind === 'number' ? parseNumber(t.text, ts) : parseChar(t.text, ts);
     return typeof r === 'string' ? { err: r, code: Code.cSyntax, tok: t } : r;
   };

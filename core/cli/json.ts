@@ -15,11 +15,11 @@ interface JsonDiagnostic {
   file?: string;
 }
 
-function diagnostic(finding: Finding, file: CheckedFile, cwd: string): JsonDiagnostic {
+function diagnostic(finding: Finding, file: CheckedFile, shownPath: (uri: string) => string): JsonDiagnostic {
   const where = locate(finding, file);
   const out: JsonDiagnostic = { severity: finding.severity, code: finding.code, line: where.line, column: where.column, endLine: where.endLine, endColumn: where.endColumn, message: finding.message };
   // A finding in a header names that file, relative to the working folder as `path` is.
-  if (where.file !== file.file) out.file = displayPath(where.file, cwd);
+  if (where.file !== file.file) out.file = shownPath(where.file);
   return out;
 }
 
@@ -28,7 +28,7 @@ function withStartup<T>(record: Record<string, T>): Record<string, T> {
   return 'first-edge' in record ? { ...record, startup: record['first-edge'] } : record;
 }
 
-/** `displayPath` for one report: it names the same few headers thousands of times, each made relative once. */
+/** `displayPath` for one report: it names the same few files thousands of times, each made relative once. */
 function pathShower(cwd: string): (uri: string) => string {
   const shown = new Map<string, string>();
   return (uri) => {
@@ -38,7 +38,7 @@ function pathShower(cwd: string): (uri: string) => string {
   };
 }
 
-function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string, shownPath: (uri: string) => string) {
+function block(analysis: BlockAnalysis, file: CheckedFile, shownPath: (uri: string) => string) {
   const out: Record<string, unknown> = {
     name: analysis.name,
     line: analysis.line,
@@ -52,7 +52,7 @@ function block(analysis: BlockAnalysis, file: CheckedFile, cwd: string, shownPat
   if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => ({ name: i.name, value: i.value, uri: i.uri, line: i.line, file: shownPath(i.uri) }));
   // `file` and `line` locate the referenced block; `value` is the number it supplied.
   out.references = (analysis.references ?? []).map((r) => ({ name: r.name, result: r.result, file: shownPath(r.uri), line: r.line, value: r.value }));
-  out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, cwd));
+  out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, shownPath));
   return out;
 }
 
@@ -61,8 +61,8 @@ export function jsonReport(checked: CheckedFile[], cwd: string, indent?: number)
   const shownPath = pathShower(cwd);
   const files = checked.map((file) => ({
     path: file.display,
-    blocks: file.analysis.blocks.map((b) => block(b, file, cwd, shownPath)),
-    diagnostics: file.analysis.findings.map((f) => diagnostic(f, file, cwd)),
+    blocks: file.analysis.blocks.map((b) => block(b, file, shownPath)),
+    diagnostics: file.analysis.findings.map((f) => diagnostic(f, file, shownPath)),
   }));
   // `version` is the shape's version: it changes only when a field changes meaning or goes away.
   return JSON.stringify({ version: 1, files }, null, indent) + '\n';

@@ -2,18 +2,18 @@
 // `key: value` right after it (a run of `//` lines, or the lines of one `/* */`), up to the first other line.
 import type { RawBlock, Span } from '../types';
 import { Code } from '../codes';
-import { lineEndAt, nextLineAt, skipBlanks, trimEnd } from './lines';
-import { EntryCollector, readEntryLine } from './entry';
+import { BLANK_CLASS, lineEndAt, nextLineAt, skipBlanks, trimEnd } from './lines';
+import { COLON_PATTERN, EntryCollector, KEY_PATTERN, readEntryLine } from './entry';
 import { ignoredHeaderText, readHeaderName, startsWithWord, type HeaderName } from './header';
 import { findComments, type CComment } from './c-comments';
 
 /** A comment line's lead (blanks, stars, blanks), its key, and the colon with blanks around it (blanks as lines.ts). */
-const COMMENT_LEAD = /[ \t\f\v\u00a0\ufeff]*\**[ \t\f\v\u00a0\ufeff]*/y;
-const COMMENT_KEY = /[A-Za-z][A-Za-z0-9+\-_.]*/y;
-const COMMENT_COLON = /[ \t\f\v\u00a0\ufeff]*:[ \t\f\v\u00a0\ufeff]*/y;
+const COMMENT_LEAD = new RegExp(`${BLANK_CLASS}*\\**${BLANK_CLASS}*`, 'y');
+const COMMENT_KEY = new RegExp(KEY_PATTERN, 'y');
+const COMMENT_COLON = new RegExp(COLON_PATTERN, 'y');
 
 /** Blanks then stars, the last of them the star of the star-slash, when a closing line holds nothing else. */
-const CLOSING_LINE = /[ \t\f\v\u00a0\ufeff]*\**/y;
+const CLOSING_LINE = new RegExp(`${BLANK_CLASS}*\\**`, 'y');
 
 // Fields are declared and set in the constructor, not initialised in the class body: one block per header, and a
 // class-body initialiser is a function call of its own on each.

@@ -1,7 +1,7 @@
 // One `key: value` line of a block, read from a slice of the text so every span stays exact.
 import type { BlockEntry, Finding, Span } from '../types';
 import { Code } from '../codes';
-import { skipBlanks, trimEnd } from './lines';
+import { BLANK_CLASS, skipBlanks, trimEnd } from './lines';
 
 export type LineReading =
   | { kind: 'blank' }
@@ -15,9 +15,14 @@ function isKeyChar(ch: number, first: boolean): boolean {
   return letter || (ch >= 48 && ch <= 57) || ch === 43 || ch === 45 || ch === 95 || ch === 46;
 }
 
-/** `key:` and the blanks around the colon, from the first non-blank of a line (blanks as `isBlank` in lines.ts). */
-const KEY_COLON = /[A-Za-z][A-Za-z0-9+\-_.]*(?=[ \t\f\v\u00a0\ufeff]*:)/y;
-const COLON_BLANKS = /[ \t\f\v\u00a0\ufeff]*:[ \t\f\v\u00a0\ufeff]*/y;
+/** isKeyChar's spelling of a key as a regular expression: a letter, then letters, digits and `+ - _ .`. */
+export const KEY_PATTERN = '[A-Za-z][A-Za-z0-9+\\-_.]*';
+/** The colon with the blanks around it (blanks as `isBlank` in lines.ts). */
+export const COLON_PATTERN = `${BLANK_CLASS}*:${BLANK_CLASS}*`;
+
+/** `key:` from the first non-blank of a line, then the colon and its blanks. */
+const KEY_COLON = new RegExp(`${KEY_PATTERN}(?=${BLANK_CLASS}*:)`, 'y');
+const COLON_BLANKS = new RegExp(COLON_PATTERN, 'y');
 const BLANK: LineReading = Object.freeze({ kind: 'blank' });
 
 /** Reads text[from, to) as `key: value`. */

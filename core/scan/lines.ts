@@ -110,6 +110,9 @@ export function nextLineAt(text: string, end: number): number {
   return text.charCodeAt(end) === 13 && text.charCodeAt(end + 1) === 10 ? end + 2 : end + 1;
 }
 
+/** isBlank's characters as a regular-expression class, for the scanners' quick paths. */
+export const BLANK_CLASS = '[ \\t\\f\\v\\u00a0\\ufeff]';
+
 /** Blank for trimming: space, tab, form feed, vertical tab, no-break space, BOM. */
 export function isBlank(ch: number): boolean {
   return ch === 32 || ch === 9 || ch === 12 || ch === 11 || ch === 0xa0 || ch === 0xfeff;

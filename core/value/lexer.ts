@@ -25,7 +25,11 @@ const isDigit = (c: string): boolean => c >= '0' && c <= '9';
 const isLetter = (c: string): boolean => (c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || c === '_';
 const isIdentChar = (c: string): boolean => isLetter(c) || isDigit(c);
 const isUnitChar = (c: string): boolean => isIdentChar(c) || '\u00b5\u03bc\u03a9\u2126%'.includes(c);
-export const isSpace = (c: string): boolean => c === ' ' || c === '\t' || c === '\u00a0' || c === '\u202f' || c === '\r' || c === '\n';
+/** Spaces between the parts of a value: space, tab, no-break space, narrow no-break space, CR, LF. */
+export const isSpaceCode = (c: number): boolean => c === 32 || c === 9 || c === 0xa0 || c === 0x202f || c === 13 || c === 10;
+export const isSpace = (c: string): boolean => isSpaceCode(c.charCodeAt(0));
+/** The same spaces as a regular-expression class, for the quick paths that read values by regex. */
+export const SPACE_CLASS = '[ \\t\\u00a0\\u202f\\r\\n]';
 
 /** Text quoted in a message, shortened so a pasted megabyte does not end up in the Problems list. */
 export function shown(text: string): string {

@@ -2,13 +2,11 @@
 import type { Dim, Span } from '../types';
 import { Code } from '../codes';
 import type { ParsedValue } from './ast';
-import { error, lex } from './lexer';
+import { error, isSpaceCode, lex, SPACE_CLASS } from './lexer';
 import { parseExpression } from './parser';
 import { splitTolerance } from './tolerance';
 import { decodeSuffix } from './units';
 
-/** The characters `isSpace` takes, by code: space, tab, no-break space, narrow no-break space, CR, LF. */
-const isSpaceCode = (c: number): boolean => c === 32 || c === 9 || c === 0xa0 || c === 0x202f || c === 13 || c === 10;
 
 const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_]*$/;
 const HYPHENATED = /^[A-Za-z_][A-Za-z0-9_]*(?:-[A-Za-z0-9_]+)+$/;
@@ -30,7 +28,7 @@ function wordKind(word: string): 'identifier' | 'hyphenated' | undefined {
  */
 const Q_MANTISSA = /\d+(?:\.\d+)?|\.\d+/y;
 const Q_POWER = /[eE][+-]?\d+/y;
-const Q_SPACES = /[ \t\u00a0\u202f\r\n]*/y;
+const Q_SPACES = new RegExp(`${SPACE_CLASS}*`, 'y');
 const Q_UNIT = /[A-Za-z_\u00b5\u03bc\u03a9\u2126%]*bit\/s|[A-Za-z_\u00b5\u03bc\u03a9\u2126%]+/y;
 const Q_PLUS_MINUS = /±|\+-|\+\/-/y;
 
