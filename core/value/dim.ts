@@ -1,17 +1,15 @@
 // Dimension check of a value tree. Physical units go through mathjs Unit objects built only from
 // our own unit names (never from user text); percent and baud are handled here.
-import { create, UnitDependencies, multiplyScalarDependencies, divideScalarDependencies } from 'mathjs';
 import type { Dim, Finding, Span } from '../types';
 import { Code } from '../codes';
 import type { ValueNode } from './ast';
 import { shown } from './lexer';
+import type { MathUnits } from './unit-math';
 
-// A restricted instance: the Unit class and the scalar arithmetic it needs, no parser or evaluator. Built on first
-// use: most values are one quantity whose dimension is known without it.
-type MathUnits = ReturnType<typeof createUnits>;
-const createUnits = () => create({ UnitDependencies, multiplyScalarDependencies, divideScalarDependencies });
+// A restricted instance (core/value/unit-math.ts), built on first use: most values are one quantity whose dimension is
+// known without it. A plain require, so the release build can point it at out/unit-math.js (scripts/build.mjs).
 let instance: MathUnits | undefined;
-const math = (): MathUnits => (instance ??= createUnits());
+const math = (): MathUnits => (instance ??= (require('./unit-math') as typeof import('./unit-math')).createUnits());
 type Unit = InstanceType<MathUnits['Unit']>;
 
 type PhysicalDim = 'Ω' | 'F' | 'V' | 'Hz' | 's' | 'A';

@@ -38,7 +38,7 @@ describe('npm package', function () {
     const [info] = JSON.parse(packed.out);
     tarball = path.join(scratch, info.filename);
     const files: string[] = info.files.map((f: { path: string }) => f.path);
-    for (const needed of ['package.json', 'bin/tickmark.js', 'out/cli.js', 'out/server.js', 'README.md', 'LICENSE', 'CHANGELOG.md']) {
+    for (const needed of ['package.json', 'bin/tickmark.js', 'out/cli.js', 'out/server.js', 'out/unit-math.js', 'README.md', 'LICENSE', 'CHANGELOG.md']) {
       assert.ok(files.includes(needed), `${needed} is not in the tarball: ${files.join(', ')}`);
     }
     assert.deepEqual(files.filter((f) => /\.ts$|\.map$|\.code-cache$|^core\/|^test\/|^node_modules\//.test(f)), []);
@@ -70,6 +70,16 @@ describe('npm package', function () {
     assert.match(checked.out, /^tick\.md:6:9: warning: tick: computes 976\.6 Hz/m);
     const sarif = sh(bin, ['check', '--sarif', '.'], { cwd: work, env });
     assert.equal(JSON.parse(sarif.out).runs[0].tool.driver.version, version);
+    // A clock written as the inverse of a period divides units: the bundle loads out/unit-math.js (mathjs) for it.
+    // 1 / 62.5 ns = 16 MHz, the same timer law as above.
+    const period = path.join(scratch, 'period');
+    fs.mkdirSync(period);
+    fs.writeFileSync(path.join(period, 'tick.md'), note.replace('clock: 16 MHz', 'clock: 1 / 62.5 ns'));
+    const divided = sh(bin, ['check', '--json', '.'], { cwd: period, env });
+    assert.equal(divided.status, 1, divided.text);
+    const [block] = JSON.parse(divided.out).files[0].blocks;
+    assert.ok(Math.abs(block.params.clock - 16e6) < 1e-3, divided.out);
+    assert.ok(Math.abs(block.values.frequency - 16e6 / 64 / 256) < 1e-6, divided.out);
   });
 
   it('leaves a V8 code cache of the command line that this Node.js accepts, out of the tarball', () => {
