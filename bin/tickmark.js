@@ -82,4 +82,4 @@ if (command === 'lsp') {
 }
 
 const cli = load('cli.js', path.join('core', 'cli', 'main.ts'), ['core']);
-process.exitCode = cli.main(process.argv.slice(2), cli.processIo());
+cli.run(process.argv.slice(2));

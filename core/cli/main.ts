@@ -4,6 +4,7 @@ import * as path from 'node:path';
 import { parseArgs, last, type ParsedArgs } from './args';
 import { collectFiles, displayPath, isTimingHost } from './files';
 import { wantsColor } from './color';
+import { ProcessOutput } from './output';
 import { checkFiles, cliOptions, rootsFor } from './run';
 import { ansiPaint, humanReport, noPaint } from './human';
 import { jsonReport } from './json';
@@ -287,22 +288,29 @@ function readStandardInput(): string {
   return fs.readFileSync(0, 'utf8');
 }
 
-/** The process's own streams and environment: what bin/tickmark.js passes to `main`. */
-export function processIo(): Io {
-  // A reader that stops early (`tickmark check --json | head`) closes the pipe: the report ends there, quietly,
-  // with the exit code the check had, as other command-line tools do.
-  process.stdout.on('error', (cause: NodeJS.ErrnoException) => {
-    if (cause.code !== 'EPIPE') throw cause;
-    process.exit(process.exitCode ?? 0);
-  });
+/** The process's own streams and environment: what `main` gets when it runs as the command (`run`). */
+export function processIo(output = { out: new ProcessOutput(1), err: new ProcessOutput(2) }): Io {
+  const terminal = output.out.terminal;
   return {
-    out: (t) => process.stdout.write(t),
-    err: (t) => process.stderr.write(t),
+    out: (t) => output.out.write(t),
+    err: (t) => output.err.write(t),
     cwd: process.cwd(),
-    color: wantsColor(process.env, Boolean(process.stdout.isTTY)),
-    terminal: Boolean(process.stdout.isTTY),
+    color: wantsColor(process.env, terminal),
+    terminal,
     stdin: readStandardInput,
   };
 }
 
-if (require.main === module) process.exitCode = main(process.argv.slice(2), processIo());
+/**
+ * The command: `main` on the process's arguments and streams. A reader that stops early (`tickmark check --json |
+ * head`) closes the pipe: the report ends there, quietly, with the exit code the check had, as other command-line
+ * tools do. With its output all written, the process ends as soon as `main` returns.
+ */
+export function run(argv: string[]): void {
+  const output = { out: new ProcessOutput(1), err: new ProcessOutput(2) };
+  const code = main(argv, processIo(output));
+  if (output.out.flushed && output.err.flushed) process.exit(code);
+  process.exitCode = code;
+}
+
+if (require.main === module) run(process.argv.slice(2));
