@@ -29,10 +29,15 @@ export interface EvalContext {
 const truth = (x: Val): boolean => (typeof x.v === 'bigint' ? x.v !== 0n : x.v !== 0);
 const bool = (b: boolean, ts: TypeSystem): Val => ({ v: b ? 1n : 0n, t: ts.int });
 
+/** Undefined behaviour in an operand C evaluates is an error; in one it does not, the result is a zero of its type. */
+const undefinedBehaviour = (err: string, tok: SourceToken, t: CType, live: boolean): EvalResult =>
+  live ? { err, code: Code.cUndefined, tok } : { v: t.kind === 'float' ? 0 : 0n, t };
+
+const integerOnly = (op: string, a: Val, b: Val, tok: SourceToken): EvalError =>
+  ({ err: `'${op}' needs integer operands, not ${a.t.name} and ${b.t.name}`, code: Code.cSyntax, tok });
+
 export function evaluate(node: Node, ctx: EvalContext, live = true): EvalResult {
   const { ts } = ctx;
-  const undefinedBehaviour = (err: string, tok: SourceToken, t: CType): EvalResult =>
-    live ? { err, code: Code.cUndefined, tok } : { v: t.kind === 'float' ? 0 : 0n, t };
   switch (node.k) {
     case 'num': {
       const r = parseNumber(node.tok.text, ts, ctx.pp);
@@ -64,7 +69,7 @@ export function evaluate(node: Node, ctx: EvalContext, live = true): EvalResult 
       const a = evaluate(node.arg, ctx, live);
       if (isError(a)) return a;
       const r = convert(a, node.type);
-      return typeof r === 'string' ? undefinedBehaviour(r, node.tok, node.type) : r;
+      return typeof r === 'string' ? undefinedBehaviour(r, node.tok, node.type, live) : r;
     }
     case 'sizeof': {
       let t = node.type;
@@ -108,12 +113,11 @@ function binary(node: Extract<Node, { k: 'binary' }>, ctx: EvalContext, live: bo
   }
   const b = evaluate(node.r, ctx, live);
   if (isError(b)) return b;
-  const integerOnly = (): EvalError => ({ err: `'${op}' needs integer operands, not ${a.t.name} and ${b.t.name}`, code: Code.cSyntax, tok });
 
   if (op === '<<' || op === '>>') {
     // Each operand is promoted on its own; the result has the left one's type (C11 6.5.7p3).
     const lt = promote(a.t, ts);
-    if (lt.kind === 'float' || b.t.kind === 'float') return integerOnly();
+    if (lt.kind === 'float' || b.t.kind === 'float') return integerOnly(op, a, b, tok);
     const x = (convert(a, lt) as Val).v as bigint;
     const count = b.v as bigint;
     if (count < 0n || count >= BigInt(lt.bits)) {
@@ -140,7 +144,7 @@ function binary(node: Extract<Node, { k: 'binary' }>, ctx: EvalContext, live: bo
     const p = x as number;
     const q = y as number;
     const f = op === '+' ? p + q : op === '-' ? p - q : op === '*' ? p * q : op === '/' ? p / q : undefined;
-    if (f === undefined) return integerOnly();
+    if (f === undefined) return integerOnly(op, a, b, tok);
     return { v: roundFloating(f, t as FloatType), t };
   }
   // BigInt division and remainder truncate toward zero, as C11 6.5.5p6 requires.

@@ -19,24 +19,49 @@ export interface MacroDef {
 }
 
 /**
- * An object-like macro written on one plain line (no comment, literal or splice), its replacement list tokenized
- * when first read: a firmware file defines far more macros than a block reads.
+ * An object-like macro written on one plain line (no comment, literal or splice): kept as where it stands in the
+ * text, its places and tokens made when read. A firmware file defines far more macros than a block reads.
  */
 export class PlainObjectMacro implements MacroDef {
   readonly params = undefined;
   readonly variadic = false;
-  private tokens: SourceToken[] | undefined;
+  /** Kept from the second expansion on (null: read once); a body read for its own value alone is not kept. */
+  private tokens: SourceToken[] | null | undefined;
 
   constructor(
-    readonly name: string, readonly uri: string, readonly nameSpan: Span, readonly span: Span, readonly line: number,
-    /** The file's text and where the replacement list stands in it (after the name, up to the newline). */
-    private readonly source: string, private readonly from: number, private readonly to: number,
+    readonly name: string, readonly uri: string, readonly line: number,
+    /** The file's text; the line's start, the name's end (where the replacement list begins) and the line's end. */
+    private readonly source: string, private readonly lineStart: number, private readonly from: number, private readonly to: number,
   ) {}
 
+  get nameSpan(): Span {
+    return { start: this.from - this.name.length, end: this.from };
+  }
+
+  /** From '#' to the end of the last token: every character past the name that is not white space is in a token. */
+  get span(): Span {
+    let last = this.to;
+    while (last > this.from && isLineSpace(this.source.charCodeAt(last - 1))) last--;
+    return { start: this.source.indexOf('#', this.lineStart), end: last };
+  }
+
   get body(): SourceToken[] {
-    return (this.tokens ??= tokenizeSourceRange(this.source, this.from, this.to, this.uri, []));
+    if (this.tokens) return this.tokens;
+    const tokens = this.readBody();
+    this.tokens = this.tokens === null ? tokens : null;
+    return tokens;
+  }
+
+  /** The replacement list tokenized afresh, not kept. */
+  readBody(): SourceToken[] {
+    return this.tokens || tokenizeSourceRange(this.source, this.from, this.to, this.uri, []);
   }
 }
+
+/** A macro's replacement list for one reading that keeps nothing (a plain macro's tokens are made anew). */
+export const bodyOf = (m: MacroDef): SourceToken[] => (m instanceof PlainObjectMacro ? m.readBody() : m.body);
+
+const isLineSpace = (c: number): boolean => c === 32 || c === 9 || c === 13 || c === 12 || c === 11;
 
 export interface ExpandLimits { maxTokens: number; maxDepth: number }
 export const DEFAULT_LIMITS: ExpandLimits = { maxTokens: 10_000, maxDepth: 200 };
@@ -53,31 +78,54 @@ export function expandMacros(
   limits: ExpandLimits = DEFAULT_LIMITS,
   inside?: ReadonlySet<string>,
 ): SourceToken[] | EvalError {
-  let produced = 0;
-  const limit = (tok: SourceToken, what: string): never => {
-    throw new Stop({ err: `macro expansion ${what} (at '${tok.text}')`, code: Code.cExpansionLimit, tok });
-  };
+  // Only an identifier can be replaced, or take the hide set of `inside`: without one the input is the result.
+  let k = 0;
+  while (k < input.length && input[k].kind !== 'ident') k++;
+  if (k === input.length) return input;
+  const expander = new Expander(lookup, limits, inside);
+  try {
+    return expander.run(input, 0);
+  } catch (e) {
+    if (e instanceof Stop) return e.error;
+    throw e;
+  }
+}
 
-  const run = (tokens: SourceToken[], depth: number): SourceToken[] => {
-    if (depth > limits.maxDepth) limit(tokens[0], `nests deeper than ${limits.maxDepth}`);
+/** One expansion: its budget and context, as fields of one object rather than closures made per call. */
+class Expander {
+  private produced = 0;
+
+  constructor(
+    private readonly lookup: (name: string) => MacroDef | undefined,
+    private readonly limits: ExpandLimits,
+    private readonly inside: ReadonlySet<string> | undefined,
+  ) {}
+
+  private limit(tok: SourceToken, what: string): never {
+    throw new Stop({ err: `macro expansion ${what} (at '${tok.text}')`, code: Code.cExpansionLimit, tok });
+  }
+
+  run(tokens: SourceToken[], depth: number): SourceToken[] {
+    const { limits, inside } = this;
+    if (depth > limits.maxDepth) this.limit(tokens[0], `nests deeper than ${limits.maxDepth}`);
     const out: SourceToken[] = [];
     const stack = tokens.slice().reverse();
     while (stack.length) {
       const t = stack.pop() as SourceToken;
       if (t.kind !== 'ident') { out.push(t); continue; }
       const hidden = t.hide ?? inside;
-      const m = lookup(t.text);
+      const m = this.lookup(t.text);
       if (!m || hidden?.has(m.name) || (m.params && stack[stack.length - 1]?.text !== '(')) {
         out.push(t.hide || !inside ? t : withHide(t, inside));
         continue;
       }
       const args = m.params ? collectArgs(stack, m, t) : undefined;
       // The hide set is t's with m added (t's does not hold m); made only once an identifier needs it.
-      if ((hidden?.size ?? 0) + 1 > limits.maxDepth) limit(t, `nests deeper than ${limits.maxDepth}`);
+      if ((hidden?.size ?? 0) + 1 > limits.maxDepth) this.limit(t, `nests deeper than ${limits.maxDepth}`);
       // An object-like macro without `##` is replaced by its body as it stands.
-      const replaced = args || hasPaste(m.body) ? substitute(m, args, (arg) => run(arg, depth + 1)) : m.body;
-      produced += replaced.length;
-      if (produced > limits.maxTokens) limit(t, `produced more than ${limits.maxTokens} tokens`);
+      const replaced = args || hasPaste(m.body) ? substitute(m, args, (arg) => this.run(arg, depth + 1)) : m.body;
+      this.produced += replaced.length;
+      if (this.produced > limits.maxTokens) this.limit(t, `produced more than ${limits.maxTokens} tokens`);
       let hide: Set<string> | undefined;
       for (let i = replaced.length - 1; i >= 0; i--) {
         const r = replaced[i];
@@ -88,13 +136,6 @@ export function expandMacros(
       }
     }
     return out;
-  };
-
-  try {
-    return run(input, 0);
-  } catch (e) {
-    if (e instanceof Stop) return e.error;
-    throw e;
   }
 }
 

@@ -31,135 +31,11 @@ class Failure { constructor(readonly error: ParseError) {} }
 
 /** `typedefName` resolves an identifier used as a type name (`uint8_t`, a file's own typedef). */
 export function parseExpression(tokens: SourceToken[], typedefName: (name: string) => CType | TypeConflict | undefined): Node | ParseError {
-  let pos = 0;
-  let depth = 0;
-  const peek = (): SourceToken | undefined => tokens[pos];
-  const fail = (error: string, tok = tokens[pos] ?? tokens[tokens.length - 1], code?: string): never => { throw new Failure({ error, tok, code }); };
-  const expect = (text: string): SourceToken => {
-    const t = peek();
-    if (t?.text !== text || (t.kind !== 'punct')) fail(t ? `expected '${text}' before '${t.text}'` : `expected '${text}' at end of expression`);
-    pos++;
-    return t as SourceToken;
-  };
-  const enter = (): void => { if (++depth > MAX_EXPRESSION_DEPTH) fail(`expression nested more than ${MAX_EXPRESSION_DEPTH} deep`); };
-
-  /** A parenthesised type name at `pos` (after '('), or undefined without consuming. */
-  const typeAt = (): { type: CType; length: number } | undefined => {
-    const words: string[] = [];
-    let j = pos;
-    while (tokens[j]?.kind === 'ident' && TYPE_KEYWORDS.has(tokens[j].text)) words.push(tokens[j++].text);
-    let type: CType | undefined;
-    if (words.every((w) => w === 'const' || w === 'volatile') && tokens[j]?.kind === 'ident') {
-      const named = typedefName(tokens[j].text);
-      if (named?.kind === 'conflict') fail(named.message, tokens[j], Code.cConditional);
-      type = named as CType | undefined;
-      if (type) j++;
-      while (tokens[j]?.text === 'const' || tokens[j]?.text === 'volatile') j++;
-    } else {
-      const name = words.length ? keywordTypeName(words) : undefined;
-      const keyword = name ? typedefName(name) : undefined;
-      type = keyword?.kind === 'conflict' ? undefined : keyword;
-    }
-    if (!type || tokens[j]?.text !== ')') return undefined;
-    return { type, length: j - pos + 1 };
-  };
-
-  const primary = (): Node => {
-    const t = peek();
-    if (!t) return fail('expression ends too early');
-    if (t.error) fail(t.error, t);
-    if (t.kind === 'number') { pos++; return { k: 'num', tok: t }; }
-    if (t.kind === 'char') { pos++; return { k: 'char', tok: t }; }
-    if (t.kind === 'ident') {
-      pos++;
-      // A call is no constant expression (C11 6.6p3), but it is parsed so the finding can say what it is.
-      if (peek()?.text === '(' && peek()?.kind === 'punct') {
-        pos++;
-        const args: Node[] = [];
-        if (peek()?.text !== ')') {
-          for (;;) {
-            args.push(conditional());
-            if (peek()?.text !== ',') break;
-            pos++;
-          }
-        }
-        expect(')');
-        return { k: 'call', tok: t, args };
-      }
-      return { k: 'ident', tok: t };
-    }
-    if (t.text === '(') {
-      pos++;
-      const inner = conditional();
-      inner.close = expect(')');
-      inner.open = t;
-      return inner;
-    }
-    if (t.kind === 'string') return fail('a string is not a number', t);
-    return fail(`unexpected '${t.text}'`, t);
-  };
-
-  const unary = (): Node => {
-    enter();
-    try {
-      const t = peek();
-      if (t && t.kind === 'punct' && (t.text === '-' || t.text === '+' || t.text === '!' || t.text === '~')) {
-        pos++;
-        return { k: 'unary', op: t.text, arg: unary(), tok: t };
-      }
-      if (t && t.kind === 'punct' && (t.text === '++' || t.text === '--')) fail(`'${t.text}' is not allowed in a constant expression`, t);
-      if (t && t.kind === 'ident' && t.text === 'sizeof') {
-        pos++;
-        if (peek()?.text === '(') {
-          pos++;
-          const ty = typeAt();
-          if (ty) { pos += ty.length; return { k: 'sizeof', type: ty.type, tok: t }; }
-          pos--;
-        }
-        return { k: 'sizeof', arg: unary(), tok: t };
-      }
-      if (t?.text === '(' && t.kind === 'punct') {
-        pos++;
-        const ty = typeAt();
-        if (ty) { pos += ty.length; return { k: 'cast', type: ty.type, arg: unary(), tok: t }; }
-        pos--;
-      }
-      return primary();
-    } finally { depth--; }
-  };
-
-  const binary = (minPrec: number): Node => {
-    let left = unary();
-    for (;;) {
-      const t = peek();
-      const prec = t && t.kind === 'punct' ? PREC[t.text] : undefined;
-      if (!t || prec === undefined || prec < minPrec) return left;
-      pos++;
-      enter();
-      const right = binary(prec + 1);
-      depth--;
-      left = { k: 'binary', op: t.text, l: left, r: right, tok: t };
-    }
-  };
-
-  const conditional = (): Node => {
-    enter();
-    try {
-      const c = binary(1);
-      const q = peek();
-      if (q?.text !== '?' || q.kind !== 'punct') return c;
-      pos++;
-      const a = conditional();
-      expect(':');
-      const b = conditional();
-      return { k: 'cond', c, a, b, tok: q };
-    } finally { depth--; }
-  };
-
+  if (tokens.length === 0) return { error: 'empty expression' };
+  const parser = new Parser(tokens, typedefName);
   try {
-    if (tokens.length === 0) return { error: 'empty expression' };
-    const node = conditional();
-    const rest = peek();
+    const node = parser.conditional();
+    const rest = tokens[parser.pos];
     if (rest) {
       if (rest.text === ',') return { error: 'a comma operator is not allowed in a constant expression (C11 6.6p3)', tok: rest };
       return { error: `unexpected '${rest.text}' after the expression`, tok: rest };
@@ -168,5 +44,146 @@ export function parseExpression(tokens: SourceToken[], typedefName: (name: strin
   } catch (e) {
     if (e instanceof Failure) return e.error;
     throw e;
+  }
+}
+
+/** Precedence climbing over the tokens; one object per expression (methods, not closures made per call). */
+class Parser {
+  pos = 0;
+  private depth = 0;
+
+  constructor(private readonly tokens: SourceToken[], private readonly typedefName: (name: string) => CType | TypeConflict | undefined) {}
+
+  private peek(): SourceToken | undefined {
+    return this.tokens[this.pos];
+  }
+
+  private fail(error: string, tok = this.tokens[this.pos] ?? this.tokens[this.tokens.length - 1], code?: string): never {
+    throw new Failure({ error, tok, code });
+  }
+
+  private expect(text: string): SourceToken {
+    const t = this.peek();
+    if (t?.text !== text || (t.kind !== 'punct')) this.fail(t ? `expected '${text}' before '${t.text}'` : `expected '${text}' at end of expression`);
+    this.pos++;
+    return t as SourceToken;
+  }
+
+  private enter(): void {
+    if (++this.depth > MAX_EXPRESSION_DEPTH) this.fail(`expression nested more than ${MAX_EXPRESSION_DEPTH} deep`);
+  }
+
+  /** A parenthesised type name at `pos` (after '('), or undefined without consuming. */
+  private typeAt(): { type: CType; length: number } | undefined {
+    const tokens = this.tokens;
+    const words: string[] = [];
+    let j = this.pos;
+    while (tokens[j]?.kind === 'ident' && TYPE_KEYWORDS.has(tokens[j].text)) words.push(tokens[j++].text);
+    let type: CType | undefined;
+    if (words.every((w) => w === 'const' || w === 'volatile') && tokens[j]?.kind === 'ident') {
+      const named = this.typedefName(tokens[j].text);
+      if (named?.kind === 'conflict') this.fail(named.message, tokens[j], Code.cConditional);
+      type = named as CType | undefined;
+      if (type) j++;
+      while (tokens[j]?.text === 'const' || tokens[j]?.text === 'volatile') j++;
+    } else {
+      const name = words.length ? keywordTypeName(words) : undefined;
+      const keyword = name ? this.typedefName(name) : undefined;
+      type = keyword?.kind === 'conflict' ? undefined : keyword;
+    }
+    if (!type || tokens[j]?.text !== ')') return undefined;
+    return { type, length: j - this.pos + 1 };
+  }
+
+  private primary(): Node {
+    const t = this.peek();
+    if (!t) return this.fail('expression ends too early');
+    if (t.error) this.fail(t.error, t);
+    if (t.kind === 'number') { this.pos++; return { k: 'num', tok: t }; }
+    if (t.kind === 'char') { this.pos++; return { k: 'char', tok: t }; }
+    if (t.kind === 'ident') {
+      this.pos++;
+      // A call is no constant expression (C11 6.6p3), but it is parsed so the finding can say what it is.
+      if (this.peek()?.text === '(' && this.peek()?.kind === 'punct') {
+        this.pos++;
+        const args: Node[] = [];
+        if (this.peek()?.text !== ')') {
+          for (;;) {
+            args.push(this.conditional());
+            if (this.peek()?.text !== ',') break;
+            this.pos++;
+          }
+        }
+        this.expect(')');
+        return { k: 'call', tok: t, args };
+      }
+      return { k: 'ident', tok: t };
+    }
+    if (t.text === '(') {
+      this.pos++;
+      const inner = this.conditional();
+      inner.close = this.expect(')');
+      inner.open = t;
+      return inner;
+    }
+    if (t.kind === 'string') return this.fail('a string is not a number', t);
+    return this.fail(`unexpected '${t.text}'`, t);
+  }
+
+  private unary(): Node {
+    this.enter();
+    try {
+      const t = this.peek();
+      if (t && t.kind === 'punct' && (t.text === '-' || t.text === '+' || t.text === '!' || t.text === '~')) {
+        this.pos++;
+        return { k: 'unary', op: t.text, arg: this.unary(), tok: t };
+      }
+      if (t && t.kind === 'punct' && (t.text === '++' || t.text === '--')) this.fail(`'${t.text}' is not allowed in a constant expression`, t);
+      if (t && t.kind === 'ident' && t.text === 'sizeof') {
+        this.pos++;
+        if (this.peek()?.text === '(') {
+          this.pos++;
+          const ty = this.typeAt();
+          if (ty) { this.pos += ty.length; return { k: 'sizeof', type: ty.type, tok: t }; }
+          this.pos--;
+        }
+        return { k: 'sizeof', arg: this.unary(), tok: t };
+      }
+      if (t?.text === '(' && t.kind === 'punct') {
+        this.pos++;
+        const ty = this.typeAt();
+        if (ty) { this.pos += ty.length; return { k: 'cast', type: ty.type, arg: this.unary(), tok: t }; }
+        this.pos--;
+      }
+      return this.primary();
+    } finally { this.depth--; }
+  }
+
+  private binary(minPrec: number): Node {
+    let left = this.unary();
+    for (;;) {
+      const t = this.peek();
+      const prec = t && t.kind === 'punct' ? PREC[t.text] : undefined;
+      if (!t || prec === undefined || prec < minPrec) return left;
+      this.pos++;
+      this.enter();
+      const right = this.binary(prec + 1);
+      this.depth--;
+      left = { k: 'binary', op: t.text, l: left, r: right, tok: t };
+    }
+  }
+
+  conditional(): Node {
+    this.enter();
+    try {
+      const c = this.binary(1);
+      const q = this.peek();
+      if (q?.text !== '?' || q.kind !== 'punct') return c;
+      this.pos++;
+      const a = this.conditional();
+      this.expect(':');
+      const b = this.conditional();
+      return { k: 'cond', c, a, b, tok: q };
+    } finally { this.depth--; }
   }
 }

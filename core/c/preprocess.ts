@@ -64,10 +64,10 @@ interface Frame {
   undecided?: string;
 }
 
-// `#define NAME` and a replacement list free of `\`, quotes and comments, to the line's end: group 2 is what
-// follows the name, which must be white space (else the macro is function-like, or the line is not so plain).
-const PLAIN_DEFINE = /[ \t\f\v\r]*#[ \t\f\v\r]*define[ \t\f\v\r]+([A-Za-z_$][\w$]*)((?:[ \t\f\v\r][^\n\\'"/]*(?:\/(?![/*])[^\n\\'"/]*)*)?)(?=\n|(?![\s\S]))/y;
-const isLineSpace = (c: number): boolean => c === 32 || c === 9 || c === 13 || c === 12 || c === 11;
+// `#define NAME` up to the name's end, the name followed by white space or the line's end (else the macro is
+// function-like, or the line is not so plain).
+const PLAIN_DEFINE_HEAD = /[ \t\f\v\r]*#[ \t\f\v\r]*define[ \t\f\v\r]+[A-Za-z_$][\w$]*(?=[ \t\f\v\r\n]|(?![\s\S]))/y;
+const isNamePart = (c: number): boolean => (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || (c >= 48 && c <= 57) || c === 95 || c === 36;
 
 const MAX_INCLUDE_DEPTH = 200;
 const MAX_INCLUDES = 2000;
@@ -234,7 +234,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
         }
         continue;
       }
-      if (at.newlines === 0 && at.unterminatedAt < 0 && live() && definePlain(source, at.start, at.end, uri, skimCountsLines ? lineNumber : undefined)) continue;
+      if (at.plain && at.newlines === 0 && live() && definePlain(source, at.start, at.end, uri, skimCountsLines ? lineNumber : undefined)) continue;
       const line = tokenizeSourceRange(source, at.start, at.end, uri, []);
       const hash = line[0];
       const name = line[1]?.text ?? '';
@@ -308,22 +308,19 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
   };
 
   /**
-   * `#define NAME replacement` on one line with no comment, literal or splice: the macro without tokenizing the
-   * line (see PlainObjectMacro). False, having done nothing, for any other line.
+   * `#define NAME replacement` on a line the skim found plain (no comment, literal or splice): the macro without
+   * tokenizing the line (see PlainObjectMacro). False, having done nothing, for any other line.
    */
   const definePlain = (source: string, start: number, end: number, uri: string, lineNumber: number | undefined): boolean => {
-    PLAIN_DEFINE.lastIndex = start;
-    const m = PLAIN_DEFINE.exec(source);
-    if (!m || PLAIN_DEFINE.lastIndex !== end) return false;
-    const name = m[1];
-    const nameEnd = start + m[0].length - m[2].length;
-    const nameStart = nameEnd - name.length;
-    // The last token ends at the last character that is not white space (every other character is in a token).
-    let last = end;
-    while (last > nameEnd && isLineSpace(source.charCodeAt(last - 1))) last--;
-    const nameSpan = { start: nameStart, end: nameEnd };
-    const span = { start: source.indexOf('#', start), end: last };
-    current.macros.set(name, { kind: 'def', def: new PlainObjectMacro(name, uri, nameSpan, span, lineNumber ?? lineOfFile.get(uri)?.(nameStart) ?? 1, source, nameEnd, end) });
+    PLAIN_DEFINE_HEAD.lastIndex = start;
+    if (!PLAIN_DEFINE_HEAD.test(source)) return false;
+    // Read back from where the match ended (test() makes no match object): the name is the letters before it.
+    const nameEnd = PLAIN_DEFINE_HEAD.lastIndex;
+    let nameStart = nameEnd - 1;
+    while (isNamePart(source.charCodeAt(nameStart - 1))) nameStart--;
+    const name = source.slice(nameStart, nameEnd);
+    const line = lineNumber ?? lineOfFile.get(uri)?.(nameStart) ?? 1;
+    current.macros.set(name, { kind: 'def', def: new PlainObjectMacro(name, uri, line, source, start, nameEnd, end) });
     return true;
   };
 

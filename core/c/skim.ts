@@ -19,9 +19,11 @@ export interface SkimmedLine {
   unterminatedAt: number;
   /** Newlines inside the logical line (splices, block comments), so a caller can count lines without a second pass. */
   newlines: number;
+  /** No comment, character or string literal, and no backslash in the line: its text is its tokens with white space between. */
+  plain: boolean;
 }
 
-export const emptySkim = (): SkimmedLine => ({ start: 0, end: 0, directive: false, keyword: false, boundaryEnd: -1, unterminatedAt: -1, newlines: 0 });
+export const emptySkim = (): SkimmedLine => ({ start: 0, end: 0, directive: false, keyword: false, boundaryEnd: -1, unterminatedAt: -1, newlines: 0, plain: true });
 
 const isIdentPart = (ch: number): boolean =>
   (ch >= 97 && ch <= 122) || (ch >= 65 && ch <= 90) || ch === 95 || ch === 36 || (ch >= 48 && ch <= 57);
@@ -54,9 +56,15 @@ const NEEDS_SKIM = /[#\\/'"]|\b(?:enum|const|constexpr|extern|typedef)\b/g;
  */
 export function nextSkimStop(text: string, from: number): number {
   NEEDS_SKIM.lastIndex = from;
-  const found = NEEDS_SKIM.exec(text);
-  return found ? found.index : text.length;
+  // test() makes no match object: where the match began is read back from where it ended. A keyword match is
+  // letters after a word boundary, so it begins where the letters before its end begin.
+  if (!NEEDS_SKIM.test(text)) return text.length;
+  let start = NEEDS_SKIM.lastIndex - 1;
+  if (isLetter(text.charCodeAt(start))) while (start > from && isLetter(text.charCodeAt(start - 1))) start--;
+  return start;
 }
+
+const isLetter = (ch: number): boolean => (ch >= 97 && ch <= 122) || (ch >= 65 && ch <= 90);
 
 /** A `\r` that no `\n` follows: a line end to the editor that the skim, counting `\n` alone, does not count. */
 export function hasLoneCarriageReturn(text: string): boolean {
@@ -72,6 +80,7 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
   out.keyword = false;
   out.boundaryEnd = -1;
   out.unterminatedAt = -1;
+  out.plain = true;
   let newlines = 0;
   let first = true;
   let i = from;
@@ -80,6 +89,7 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
     if (c === 10) break;
     if (c === 32 || c === 9 || c === 13 || c === 12 || c === 11) { i++; continue; }
     if (c === 92) {
+      out.plain = false;
       const s = splice(text, i);
       if (s) { i += s; newlines++; continue; }
       first = false;
@@ -90,6 +100,7 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
       const next = text.charCodeAt(i + 1);
       if (next === 47) {
         // A line comment ends at the newline unless a splice carries it on.
+        out.plain = false;
         i += 2;
         while (i < n && text.charCodeAt(i) !== 10) {
           const s = text.charCodeAt(i) === 92 ? splice(text, i) : 0;
@@ -99,6 +110,7 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
         continue;
       }
       if (next === 42) {
+        out.plain = false;
         const close = text.indexOf('*/', i + 2);
         if (close < 0) {
           out.unterminatedAt = i;
@@ -111,6 +123,7 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
       }
     }
     if (c === 39 || c === 34) {
+      out.plain = false;
       let j = i + 1;
       while (j < n) {
         const d = text.charCodeAt(j);

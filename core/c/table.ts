@@ -4,7 +4,7 @@ import { Code } from '../codes';
 import type { Finding, Span } from '../types';
 import { convert, fits, typeSystem, type CType, type DataModel, type TypeConflict, type Val } from './ctypes';
 import { evaluate, isError, type EvalContext, type EvalError, type EvalResult } from './evaluate';
-import { expandMacros, type MacroDef } from './macros';
+import { bodyOf, expandMacros, type MacroDef } from './macros';
 import { parseChar, parseNumber } from './literals';
 import { parseExpression } from './parse';
 import type { BuildConfig } from './config';
@@ -82,14 +82,13 @@ function soleLiteral(body: SourceToken[]): SourceToken | undefined {
   return t && (t.kind === 'number' || t.kind === 'char') ? t : undefined;
 }
 
-function literalOf(body: SourceToken[]): ConstantDefinition['literal'] {
-  const t = soleLiteral(body);
-  return t && { span: { start: t.start, end: t.end }, text: t.text };
-}
-
-function definitionOf(d: MacroDef | Declaration): ConstantDefinition {
-  const body = 'body' in d ? d.body : d.init;
-  return { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal: body ? literalOf(body) : undefined };
+/** `sole`: the body's sole literal, when the caller has found it already (null: it has none). */
+function definitionOf(d: MacroDef | Declaration, sole?: SourceToken | null): ConstantDefinition {
+  if (sole === undefined) {
+    const body = 'body' in d ? bodyOf(d) : d.init;
+    sole = body ? soleLiteral(body) : undefined;
+  }
+  return { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal: sole ? { span: { start: sole.start, end: sole.end }, text: sole.text } : undefined };
 }
 
 const where = (d: MacroDef | Declaration): string => `${d.uri.split(/[\\/]/).pop()}:${d.line}`;
@@ -132,22 +131,21 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
 
   const evalContext: EvalContext = { ts, identifier };
 
-  const finish = (name: string, x: EvalResult, def: MacroDef | Declaration): ConstantResolution => {
+  const finish = (name: string, x: EvalResult, def: MacroDef | Declaration, sole?: SourceToken | null): ConstantResolution => {
     // Undefined behaviour names the constant it sits in, once: outer constants pass the message on as it is.
     if (isError(x) && x.code === Code.cRuntime) {
       // Named with its line, and what makes it a run-time value: the variable or the call it reaches.
       const own = 'body' in def || def.kind !== 'runtime';
-      if (!own) return { ok: false, code: x.code, message: x.err, runtime: x.runtime, definition: definitionOf(def) };
-      return { ok: false, code: x.code, message: `${name} (${where(def)}) is only known at run time: it ${x.runtime}`, runtime: `${x.runtime}`, definition: definitionOf(def) };
+      if (!own) return { ok: false, code: x.code, message: x.err, runtime: x.runtime, definition: definitionOf(def, sole) };
+      return { ok: false, code: x.code, message: `${name} (${where(def)}) is only known at run time: it ${x.runtime}`, runtime: `${x.runtime}`, definition: definitionOf(def, sole) };
     }
-    if (isError(x)) return { ...fail(x.code === Code.cUndefined && !x.named ? { ...x, err: `${name}: ${x.err}` } : x), definition: definitionOf(def) };
+    if (isError(x)) return { ...fail(x.code === Code.cUndefined && !x.named ? { ...x, err: `${name}: ${x.err}` } : x), definition: definitionOf(def, sole) };
     values.set(name, x);
-    return { ok: true, value: toCValue(x), definition: definitionOf(def) };
+    return { ok: true, value: toCValue(x), definition: definitionOf(def, sole) };
   };
 
   /** A body that is one number or character constant, maybe parenthesised: what evaluating it gives, read directly. */
-  const literalValue = (body: SourceToken[]): EvalResult | undefined => {
-    const t = soleLiteral(body);
+  const literalValue = (t: SourceToken | undefined): EvalResult | undefined => {
     if (!t || t.error) return undefined;
     const r = t.kind === 'number' ? parseNumber(t.text, ts) : parseChar(t.text, ts);
     return typeof r === 'string' ? { err: r, code: Code.cSyntax, tok: t } : r;
@@ -187,10 +185,12 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     if (mb?.kind === 'def') {
       const m = mb.def;
       if (m.params) return { ok: false, code: Code.cSyntax, message: `${name} is a function-like macro; it needs arguments`, definition: definitionOf(m) };
-      const literal = literalValue(m.body);
-      if (literal) return finish(name, literal, m);
+      const body = bodyOf(m);
+      const sole = soleLiteral(body) ?? null;
+      const literal = literalValue(sole ?? undefined);
+      if (literal) return finish(name, literal, m, sole);
       // The body's identifiers are hidden from the macro itself (C11 6.10.3.4p2).
-      return finish(name, evalTokens(m.body, new Set([name])), m);
+      return finish(name, evalTokens(body, new Set([name])), m, sole);
     }
     const db = root.decl(name);
     if (db?.kind === 'conflict') {
