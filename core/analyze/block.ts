@@ -1,6 +1,6 @@
 // One block from scanned text to every number the engine can say about it.
 import type { BlockAnalysis, BlockEntry, Finding, RawBlock, SolvedPart } from '../types';
-import { isRegisterKey, type CircuitModel } from '../circuits/model';
+import { isRegisterKey, type CircuitModel, type ModelIssue } from '../circuits/model';
 import { circuitById, circuits } from '../circuits/registry';
 import { isSafetyName, safetyCaution } from '../circuits/common';
 import { compileValue, parseValue } from '../value';
@@ -10,7 +10,7 @@ import { didYouMean } from './keys';
 import { modelKeys } from './model-keys';
 import { buildPlan, type Plan } from './plan';
 import { evaluateParams, ownTolerancedKeys, tolerancedKeys } from './evaluate';
-import { computeAt, finiteOnly, limitIssues, modelInput, runModel } from './measure';
+import { computeAt, finiteRecord, limitIssues, modelInput, runModel } from './measure';
 import { parseClaims } from './claims';
 import { monteCarlo, worstCase } from './spread';
 import { solveUnknowns } from './unknowns';
@@ -20,37 +20,35 @@ import { blockKey } from '../block-keys';
 
 const dataModels = (blockKey('data-model')?.words ?? []).map((w) => w.word as DataModelName);
 
+/** Overrides of a block without `?` keys: nothing solved, so nothing replaces a value (never written to). */
+const noOverrides: Record<string, number> = Object.freeze({}) as Record<string, number>;
+
+function hasError(findings: readonly Finding[]): boolean {
+  for (let i = 0; i < findings.length; i++) if (findings[i].severity === 'error') return true;
+  return false;
+}
+
 export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysis {
-  const findings: Finding[] = [...raw.findings];
+  const findings: Finding[] = raw.findings.slice();
   const entries = new Map<string, BlockEntry>();
   // Indexed loops on the per-block path: a cold process runs them before any optimisation removes the iterators.
   for (let i = 0; i < raw.entries.length; i++) entries.set(raw.entries[i].key, raw.entries[i]);
   const circuitEntry = entries.get('circuit');
   const circuitId = circuitEntry?.valueText.trim().toLowerCase();
-  const analysis: BlockAnalysis = {
-    name: raw.name ?? `${circuitId || 'timing'}@${context.line}`,
-    line: context.line,
-    circuit: circuitId || undefined,
-    block: raw,
-    params: {},
-    choices: {},
-    lists: {},
-    values: {},
-    identifiers: [],
-    findings,
-  };
-  if (!circuitEntry || !circuitId) {
-    findings.push({ severity: 'error', code: Code.circuitMissing, message: `block needs \`circuit:\` (one of ${circuits.map((c) => c.id).join(', ')})`, span: raw.headerSpan });
-    return analysis;
-  }
-  const model = circuitById(circuitId);
+  const name = raw.name ?? `${circuitId || 'timing'}@${context.line}`;
+  const model = circuitEntry && circuitId ? circuitById(circuitId) : undefined;
   if (!model) {
-    findings.push({
-      severity: 'error',
-      code: Code.circuitUnknown,
-      message: `unknown circuit \`${circuitId}\`${didYouMean(circuitId, circuits.map((c) => c.id)) || ` (known: ${circuits.map((c) => c.id).join(', ')})`}`,
-      span: circuitEntry.valueSpan,
-    });
+    const analysis: BlockAnalysis = { name, line: context.line, circuit: circuitId || undefined, block: raw, params: {}, choices: {}, lists: {}, values: {}, identifiers: [], findings };
+    if (!circuitEntry || !circuitId) {
+      findings.push({ severity: 'error', code: Code.circuitMissing, message: `block needs \`circuit:\` (one of ${circuits.map((c) => c.id).join(', ')})`, span: raw.headerSpan });
+    } else {
+      findings.push({
+        severity: 'error',
+        code: Code.circuitUnknown,
+        message: `unknown circuit \`${circuitId}\`${didYouMean(circuitId, circuits.map((c) => c.id)) || ` (known: ${circuits.map((c) => c.id).join(', ')})`}`,
+        span: circuitEntry.valueSpan,
+      });
+    }
     return analysis;
   }
 
@@ -62,43 +60,39 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     else findings.push({ severity: 'error', code: Code.valueOption, message: `\`data-model\` takes ${dataModels.join(', ')}, not \`${dataModelEntry.valueText}\``, span: dataModelEntry.valueSpan });
   }
 
-  if (raw.host === 'c') findings.push(...unsignedSuffixHints(raw, model));
+  if (raw.host === 'c') unsignedSuffixHints(raw, model, findings);
   const plan = buildPlan(raw, model, context.source, dataModel, entries, context.references);
-  findings.push(...plan.findings);
-  if (plan.references.length) analysis.references = plan.references;
-  findings.push(...seriesFindings(plan, context.uri));
-  analysis.identifiers = plan.identifiers;
-  analysis.choices = { ...plan.choices };
-  analysis.lists = { ...plan.lists };
-  const blocked = () => findings.some((f) => f.severity === 'error');
+  for (let i = 0; i < plan.findings.length; i++) findings.push(plan.findings[i]);
+  const seriesProblems = seriesFindings(plan, context.uri);
+  for (let i = 0; i < seriesProblems.length; i++) findings.push(seriesProblems[i]);
 
-  const overrides: Record<string, number> = {};
-  if (plan.unknowns.length && !blocked()) {
-    const solved = solveUnknowns(plan, entries, context, overrides, findings);
-    if (solved) analysis.solved = solved;
-  } else if (plan.unknowns.length) {
-    for (const u of plan.unknowns) findings.push({ severity: 'info', code: Code.solveBlocked, message: `\`${u.key}: ?\` is solved once the errors above are fixed`, span: u.span });
+  let overrides = noOverrides;
+  let solved: BlockAnalysis['solved'];
+  const unknowns = plan.unknowns;
+  if (unknowns.length && !hasError(findings)) {
+    overrides = {};
+    solved = solveUnknowns(plan, entries, context, overrides, findings);
+  } else if (unknowns.length) {
+    for (const u of unknowns) findings.push({ severity: 'info', code: Code.solveBlocked, message: `\`${u.key}: ?\` is solved once the errors above are fixed`, span: u.span });
   }
 
   const params = evaluateParams(plan, undefined, overrides);
-  analysis.params = finiteOnly(params);
-  if (blocked() || plan.unknowns.some((u) => !(u.key in overrides))) return analysis;
+  // The plan's own records, made for this block alone: the analysis keeps them rather than copies.
+  const analysis: BlockAnalysis = { name, line: context.line, circuit: circuitId, block: raw, params: finiteRecord(params), choices: plan.choices, lists: plan.lists, values: {}, identifiers: plan.identifiers, findings };
+  if (plan.references.length) analysis.references = plan.references as BlockAnalysis['references'];
+  if (solved) analysis.solved = solved;
+  if (hasError(findings)) return analysis;
+  for (let i = 0; i < unknowns.length; i++) if (!(unknowns[i].key in overrides)) return analysis;
 
   const input = modelInput(plan, params, true, overrides);
-  analysis.ranges = { ...plan.ranges };
+  analysis.ranges = plan.ranges;
   analysis.tolerances = input.tolerances;
   // The parameter table's limits speak first; the model's own check of the same key would only repeat them.
   const limits = limitIssues(model, params);
-  const flagged = new Set(limits.map((i) => i.key));
-  const issues = [...limits, ...safeValidate(model, input).filter((i) => !flagged.has(i.key))];
-  for (let i = 0; i < issues.length; i++) {
-    const issue = issues[i];
-    const entry = entries.get(issue.key);
-    // Every physics finding names its key, even where the model's sentence speaks in the trade's words.
-    const message = issue.message.includes(`\`${issue.key}\``) ? issue.message : `\`${issue.key}\`: ${issue.message}`;
-    findings.push({ severity: issue.severity ?? 'error', code: issue.code ?? Code.physics, message, span: entry ? entry.valueSpan : raw.headerSpan });
-  }
-  if (blocked()) return analysis;
+  for (let i = 0; i < limits.length; i++) findings.push(physicsFinding(limits[i], entries, raw));
+  const checked = safeValidate(model, input);
+  for (let i = 0; i < checked.length; i++) if (!flagged(limits, checked[i].key)) findings.push(physicsFinding(checked[i], entries, raw));
+  if (hasError(findings)) return analysis;
   try {
     const run = runModel(model, input);
     analysis.values = run.values;
@@ -111,10 +105,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
     return analysis;
   }
 
-  context.computed?.(
-    { model, tolerancedKeys: ownTolerancedKeys(plan), upstreamInputs: plan.upstreamInputs, at: (local, upstream) => computeAt(plan, local, overrides, upstream) },
-    analysis.values,
-  );
+  if (context.computed) handOn(context.computed, plan, overrides, analysis.values);
   const keys = tolerancedKeys(plan);
   if (keys.length) {
     const spread = worstCase(plan, keys, overrides);
@@ -126,13 +117,29 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
   const expectEntry = entries.get('expect');
   if (expectEntry) {
     const claims = parseClaims(expectEntry, model, context.options.defaultTolerance, findings);
-    checkClaims(analysis, plan, claims, overrides, context, findings);
+    if (claims.length) checkClaims(analysis, plan, claims, overrides, context, findings);
   }
 
-  for (const caution of blockCautions(model, input, raw, entries, findings)) {
-    findings.push({ severity: 'info', code: Code.caution, message: caution, span: raw.headerSpan });
-  }
+  const cautions = blockCautions(model, input, raw, entries, findings);
+  for (let i = 0; i < cautions.length; i++) findings.push({ severity: 'info', code: Code.caution, message: cautions[i], span: raw.headerSpan });
   return analysis;
+}
+
+/** The computed block, for the blocks that reference it (made apart from analyzeBlock, which then keeps no closure). */
+function handOn(computed: NonNullable<BlockContext['computed']>, plan: Plan, overrides: Record<string, number>, values: Readonly<Record<string, number>>): void {
+  computed({ model: plan.model, tolerancedKeys: ownTolerancedKeys(plan), upstreamInputs: plan.upstreamInputs, at: (local, upstream) => computeAt(plan, local, overrides, upstream) }, values);
+}
+
+function flagged(limits: readonly ModelIssue[], key: string): boolean {
+  for (let i = 0; i < limits.length; i++) if (limits[i].key === key) return true;
+  return false;
+}
+
+/** A limit or a model's finding on a key: it names its key, even where the model's sentence speaks in the trade's words. */
+function physicsFinding(issue: ModelIssue, entries: Map<string, BlockEntry>, raw: RawBlock): Finding {
+  const entry = entries.get(issue.key);
+  const message = issue.message.includes(`\`${issue.key}\``) ? issue.message : `\`${issue.key}\`: ${issue.message}`;
+  return { severity: issue.severity ?? 'error', code: issue.code ?? Code.physics, message, span: entry ? entry.valueSpan : raw.headerSpan };
 }
 
 /**
@@ -197,8 +204,7 @@ const firmwareNamePattern = /\b[A-Z][A-Z0-9]{2,}\b/;
 const firmwareName = (text: string) => text.includes('_') || firmwareNamePattern.test(text);
 const digitU = /\d[uU]/;
 
-function unsignedSuffixHints(raw: RawBlock, model: CircuitModel): Finding[] {
-  const hints: Finding[] = [];
+function unsignedSuffixHints(raw: RawBlock, model: CircuitModel, hints: Finding[]): void {
   // Beside a firmware name (`SYS_CLOCK / 2u`) or in a plain-number key (`prescaler: 2u`, a register); `c: 2u`
   // alone is a 2 µF capacitor, as meant.
   // Linear tests only: a value line can be hostile and long.
@@ -223,7 +229,6 @@ function unsignedSuffixHints(raw: RawBlock, model: CircuitModel): Finding[] {
       });
     }
   }
-  return hints;
 }
 
 /** An integer block key (`samples`, `seed`) within the limits of its row in core/block-keys.ts. */

@@ -83,15 +83,15 @@ export function evaluateParams(plan: Plan, offsets?: Offsets, overrides?: Readon
 }
 
 /** Keys whose given value carries a tolerance. */
-export function ownTolerancedKeys(plan: Plan): string[] {
-  const keys: string[] = [];
-  for (const s of plan.slots.values()) if (s.tolerance && (s.tolerance.plus > 0 || s.tolerance.minus > 0)) keys.push(s.key);
-  return keys;
+export function ownTolerancedKeys(plan: Plan): readonly string[] {
+  return plan.ownToleranced;
 }
 
 /** Every input that moves the block's results: its own toleranced keys, then the ids of toleranced inputs upstream. */
-export function tolerancedKeys(plan: Plan): string[] {
-  const keys = ownTolerancedKeys(plan);
-  for (const input of plan.upstreamInputs) keys.push(input.id);
+export function tolerancedKeys(plan: Plan): readonly string[] {
+  const inputs = plan.upstreamInputs;
+  if (inputs.length === 0) return plan.ownToleranced;
+  const keys = plan.ownToleranced.slice();
+  for (let i = 0; i < inputs.length; i++) keys.push(inputs[i].id);
   return keys;
 }

@@ -5,6 +5,15 @@ import type { Plan } from './plan';
 import { finiteOnly } from '../num';
 import { Code } from '../codes';
 export { finiteOnly };
+
+/** The record itself when every value is a finite number (the usual case, nothing copied), else finiteOnly's copy. */
+export function finiteRecord(results: Record<string, number>): Record<string, number> {
+  for (const key in results) {
+    const value = results[key];
+    if (typeof value !== 'number' || !Number.isFinite(value)) return finiteOnly(results);
+  }
+  return results;
+}
 import { evaluateParams, tolerancedKeys } from './evaluate';
 import type { Offsets } from './context';
 
@@ -109,7 +118,7 @@ const requiredByModel = new WeakMap<CircuitModel, string[]>();
 export function runModel(model: CircuitModel, input: ModelInput): { values: Record<string, number>; missing: string[] } {
   let required = requiredByModel.get(model);
   if (!required) requiredByModel.set(model, (required = model.results.filter((r) => !r.optional).map((r) => r.key)));
-  const values = finiteOnly(model.compute(input));
+  const values = finiteRecord(model.compute(input));
   const missing: string[] = [];
   for (let i = 0; i < required.length; i++) if (!(required[i] in values)) missing.push(required[i]);
   return { values, missing };

@@ -12,18 +12,31 @@ export interface OrderInput {
   unknowns: ReadonlyArray<{ key: string }>;
 }
 
+/** Shared by every order without findings: nothing adds to it. */
+const noFindings: Finding[] = Object.freeze([]) as unknown as Finding[];
+
+function isUnknown(unknowns: ReadonlyArray<{ key: string }>, key: string): boolean {
+  for (let i = 0; i < unknowns.length; i++) if (unknowns[i].key === key) return true;
+  return false;
+}
+
+function allDone(refs: ReadonlyArray<readonly [string, string]>, done: ReadonlySet<string>): boolean {
+  for (let i = 0; i < refs.length; i++) if (!done.has(refs[i][1])) return false;
+  return true;
+}
+
 /**
  * The order in which quantity keys get values: a given key once the keys it names have theirs, a default once
  * its inputs exist. Found once by a fixed-point pass, then replayed for every evaluation.
  */
 export function evaluationOrder(plan: OrderInput, raw: RawBlock): { order: string[]; findings: Finding[] } {
   const order: string[] = [];
-  const findings: Finding[] = [];
   const done = new Set<string>();
-  const unknownKeys = new Set(plan.unknowns.map((u) => u.key));
+  const unknowns = plan.unknowns;
   const quantitySpecs = modelKeys(plan.model).quantityList;
-  const probe: Record<string, number> = {};
-  for (const k of unknownKeys) probe[k] = 1;
+  // What a computed default sees of the keys before it: 1 for a given or unknown key, a default its value. Kept
+  // only for defaults (most are plain numbers, and most keys are given).
+  let defaults: Record<string, number> | undefined;
   let progress = true;
   while (progress) {
     progress = false;
@@ -31,34 +44,36 @@ export function evaluationOrder(plan: OrderInput, raw: RawBlock): { order: strin
       const spec = quantitySpecs[i];
       if (done.has(spec.key)) continue;
       const slot = plan.slots.get(spec.key);
-      if (unknownKeys.has(spec.key)) {
+      if (unknowns.length && isUnknown(unknowns, spec.key)) {
         done.add(spec.key);
         order.push(spec.key);
         progress = true;
       } else if (slot) {
-        if (slot.blockRefs.every(([, key]) => done.has(key))) {
+        if (allDone(slot.blockRefs, done)) {
           done.add(spec.key);
           order.push(spec.key);
-          probe[spec.key] = 1;
           progress = true;
         }
       } else if (!plan.entries.has(spec.key) && spec.default !== undefined) {
-        const value = typeof spec.default === 'number' ? spec.default : spec.default(probeValues(plan, order, probe));
+        const value = typeof spec.default === 'number' ? spec.default : spec.default(probeValues(order, defaults));
         if (Number.isFinite(value)) {
           done.add(spec.key);
           order.push(spec.key);
-          probe[spec.key] = value;
+          (defaults ??= Object.create(null) as Record<string, number>)[spec.key] = value;
           progress = true;
         }
       }
     }
   }
+  let findings = noFindings;
+  if (done.size === quantitySpecs.length) return { order, findings };
   for (let i = 0; i < quantitySpecs.length; i++) {
     const spec = quantitySpecs[i];
     if (done.has(spec.key)) continue;
     const slot = plan.slots.get(spec.key);
     if (slot) {
       const names = slot.blockRefs.map(([, key]) => key).filter((k) => !done.has(k));
+      if (findings === noFindings) findings = [];
       findings.push({
         severity: 'error',
         code: Code.identifierCycle,
@@ -67,14 +82,18 @@ export function evaluationOrder(plan: OrderInput, raw: RawBlock): { order: strin
       });
     } else if (!plan.entries.has(spec.key) && !spec.optional && spec.default === undefined) {
       // A key with a default is only missing when its inputs are, and those are reported themselves.
+      if (findings === noFindings) findings = [];
       findings.push({ severity: 'error', code: Code.keyRequired, message: `${plan.model.id} needs \`${spec.key}\` (${spec.label})`, span: raw.headerSpan });
     }
   }
   return { order, findings };
 }
 
-function probeValues(plan: OrderInput, order: string[], probe: Record<string, number>): Record<string, number> {
+function probeValues(order: readonly string[], defaults: Readonly<Record<string, number>> | undefined): Record<string, number> {
   const values: Record<string, number> = {};
-  for (const key of order) values[key] = probe[key];
+  for (let i = 0; i < order.length; i++) {
+    const key = order[i];
+    values[key] = defaults !== undefined && key in defaults ? defaults[key] : 1;
+  }
   return values;
 }

@@ -2,7 +2,7 @@
 // (nominal, tolerance corners, Monte Carlo samples, solver steps) without parsing again.
 import type { BlockEntry, BlockReference, Dim, Finding, RawBlock, ResolvedIdentifier, Span, Tolerance } from '../types';
 import type { CircuitModel, IntegerSet, Interval, QuantityParam } from '../circuits/model';
-import { compileValue, dimOf, parseIntegerSet, parseRange, parseUnknown, parseValue, type BlockRef, type ValueNode } from '../value';
+import { compileValue, dimOf, parseIntegerSet, parseRange, parseUnknown, parseValue, type ValueNode } from '../value';
 import { Code } from '../codes';
 import type { DataModelName, IdentifierLookup, IdentifierSource } from './context';
 import { didYouMean, isMetaEntry, metaKeys } from './keys';
@@ -17,8 +17,8 @@ export interface Slot {
   spec: QuantityParam;
   entry: BlockEntry;
   evaluate: (env: Readonly<Record<string, number>>) => number;
-  /** Identifier as written → block key it names. */
-  blockRefs: Array<[string, string]>;
+  /** Identifier as written → block key it names (one shared empty list when it names none). */
+  blockRefs: ReadonlyArray<readonly [string, string]>;
   tolerance?: Tolerance;
   /** Other blocks' results the value reads: name in the value (`@xtal.frequency`), the block, the result. */
   upstream?: Array<[string, BlockOutput, string]>;
@@ -37,29 +37,35 @@ export interface Unknown {
   allowed?: IntegerSet;
 }
 
+/**
+ * A block's evaluation plan, complete once built: the evaluation reads it and never writes to it
+ * (core/analyze/evaluate.ts). Lists a block leaves empty are one shared empty list, so nothing may add to them.
+ */
 export interface Plan {
-  model: CircuitModel;
+  readonly model: CircuitModel;
   /** The block's name as written, for cautions that depend on use. */
-  name?: string;
-  entries: Map<string, BlockEntry>;
-  slots: Map<string, Slot>;
+  readonly name?: string;
+  readonly entries: Map<string, BlockEntry>;
+  readonly slots: Map<string, Slot>;
   /** Order in which quantity keys get their values: given slots and defaults interleaved. */
-  order: string[];
-  externalLookups: Map<string, IdentifierLookup & { ok: true }>;
-  choices: Record<string, string>;
-  lists: Record<string, IntegerSet>;
-  ranges: Record<string, Interval>;
-  unknowns: Unknown[];
-  findings: Finding[];
-  identifiers: ResolvedIdentifier[];
+  readonly order: readonly string[];
+  readonly externalLookups: ReadonlyMap<string, IdentifierLookup & { ok: true }>;
+  readonly choices: Record<string, string>;
+  readonly lists: Record<string, IntegerSet>;
+  readonly ranges: Record<string, Interval>;
+  readonly unknowns: readonly Unknown[];
+  readonly findings: readonly Finding[];
+  readonly identifiers: ResolvedIdentifier[];
   /** Other blocks' results used, in the order written. */
-  references: BlockReference[];
+  readonly references: readonly BlockReference[];
   /** Toleranced inputs upstream of the references, each once. */
-  upstreamInputs: UpstreamInput[];
+  readonly upstreamInputs: readonly UpstreamInput[];
   /** The keys in `order`, each resolved to its slot or its default's spec: what evaluateParams replays. */
-  steps: readonly Step[];
+  readonly steps: readonly Step[];
   /** Some slot reads another key of the block or another block's result (through the evaluation's environment). */
-  readsEnv: boolean;
+  readonly readsEnv: boolean;
+  /** Keys whose given value carries a tolerance above zero, in the order written. */
+  readonly ownToleranced: readonly string[];
 }
 
 /** One key of the evaluation order: its given value (slot) or, without one, its spec for the default. */
@@ -69,10 +75,13 @@ export interface Step {
   spec?: QuantityParam;
 }
 
-function identifiersOf(node: ValueNode, out: Array<{ name: string; span: Span; ref?: BlockRef }> = []): Array<{ name: string; span: Span; ref?: BlockRef }> {
+type IdentNode = Extract<ValueNode, { kind: 'ident' }>;
+
+/** The identifier nodes of a value, in the order written. */
+function identifiersOf(node: ValueNode, out: IdentNode[]): IdentNode[] {
   switch (node.kind) {
     case 'ident':
-      out.push({ name: node.name, span: node.span, ref: node.ref });
+      out.push(node);
       break;
     case 'unary':
       identifiersOf(node.arg, out);
@@ -89,6 +98,73 @@ function error(code: string, message: string, span: Span): Finding {
   return { severity: 'error', code, message, span };
 }
 
+/** One empty list for every plan and slot that has none of a kind; a finished plan is never added to. */
+const none = Object.freeze([]) as unknown as never[];
+
+function hasError(findings: readonly Finding[]): boolean {
+  for (let i = 0; i < findings.length; i++) if (findings[i].severity === 'error') return true;
+  return false;
+}
+
+/**
+ * What a plan gathers while its entries are read. Lists start as the shared empty one and are made on the first
+ * item: most blocks have no unknowns, references or findings (a cold run builds one plan per block).
+ */
+class PlanBuilder {
+  declare findings: Finding[];
+  declare identifiers: ResolvedIdentifier[];
+  declare externalLookups: Map<string, IdentifierLookup & { ok: true }> | undefined;
+  declare references: BlockReference[];
+  declare upstreamInputs: UpstreamInput[];
+  declare unknowns: Unknown[];
+  declare ownToleranced: string[];
+  declare readsEnv: boolean;
+
+  constructor() {
+    this.findings = none;
+    this.identifiers = [];
+    this.externalLookups = undefined;
+    this.references = none;
+    this.upstreamInputs = none;
+    this.unknowns = none;
+    this.ownToleranced = none;
+    this.readsEnv = false;
+  }
+
+  finding(finding: Finding): void {
+    if (this.findings === none) this.findings = [];
+    this.findings.push(finding);
+  }
+
+  addFindings(findings: readonly Finding[]): void {
+    for (let i = 0; i < findings.length; i++) this.finding(findings[i]);
+  }
+
+  unknown(unknown: Unknown): void {
+    if (this.unknowns === none) this.unknowns = [];
+    this.unknowns.push(unknown);
+  }
+
+  reference(reference: BlockReference): void {
+    if (this.references === none) this.references = [];
+    this.references.push(reference);
+  }
+
+  upstreamInput(input: UpstreamInput): void {
+    const inputs = this.upstreamInputs;
+    for (let i = 0; i < inputs.length; i++) if (inputs[i].id === input.id) return;
+    if (this.upstreamInputs === none) this.upstreamInputs = [];
+    this.upstreamInputs.push(input);
+  }
+
+  toleranced(key: string): void {
+    if (this.ownToleranced === none) this.ownToleranced = [];
+    this.ownToleranced.push(key);
+  }
+}
+
+const noLookups: ReadonlyMap<string, IdentifierLookup & { ok: true }> = new Map();
+
 /**
  * Builds the plan; every problem becomes a finding and the plan stays usable for what did resolve. `entries` is
  * the block's entries by key when the caller has them already.
@@ -102,24 +178,11 @@ export function buildPlan(
   references: ReferenceSource = noReferences,
 ): Plan {
   const keys = modelKeys(model);
-  const plan: Plan = {
-    model,
-    name: raw.name,
-    entries: entries ?? new Map(raw.entries.map((e) => [e.key, e])),
-    slots: new Map(),
-    order: [],
-    externalLookups: new Map(),
-    choices: {},
-    lists: {},
-    ranges: {},
-    unknowns: [],
-    findings: [],
-    identifiers: [],
-    references: [],
-    upstreamInputs: [],
-    steps: [],
-    readsEnv: false,
-  };
+  const built = new PlanBuilder();
+  const slots = new Map<string, Slot>();
+  const choices: Record<string, string> = {};
+  let lists: Record<string, IntegerSet> | undefined;
+  let ranges: Record<string, Interval> | undefined;
   const quantityKeys = keys.quantities;
 
   for (let i = 0; i < raw.entries.length; i++) {
@@ -128,7 +191,7 @@ export function buildPlan(
     const spec = keys.params.get(entry.key);
     if (!spec) {
       const hint = entry.key === 'from' ? ' (a note\'s firmware file is named with `firmware:`)' : didYouMean(entry.key, [...model.params.map((p) => p.key), ...metaKeys]);
-      plan.findings.push({
+      built.finding({
         severity: 'warning',
         code: Code.keyUnknown,
         message: `\`${entry.key}\` is not a key of ${model.id}${hint}`,
@@ -138,70 +201,134 @@ export function buildPlan(
     }
     if (spec.kind === 'choice') {
       const word = entry.valueText.trim().toLowerCase();
-      if (spec.options.includes(word)) plan.choices[spec.key] = word;
+      if (spec.options.includes(word)) choices[spec.key] = word;
       else
-        plan.findings.push(
+        built.finding(
           error(Code.valueOption, `\`${entry.key}\` takes ${spec.options.map((o) => `\`${o}\``).join(' or ')}, not \`${entry.valueText}\`${didYouMean(word, spec.options)}`, entry.valueSpan),
         );
       continue;
     }
     if (spec.kind === 'list') {
       const parsed = parseIntegerSet(entry.valueText, entry.valueSpan.start);
-      plan.findings.push(...parsed.findings);
-      if (parsed.set) plan.lists[spec.key] = parsed.set;
+      built.addFindings(parsed.findings);
+      if (parsed.set) (lists ??= {})[spec.key] = parsed.set;
       continue;
     }
     if (spec.kind === 'range') {
       const parsed = parseRange(entry.valueText, entry.valueSpan.start, spec.dim, spec.key);
-      plan.findings.push(...parsed.findings);
-      if (parsed.min !== undefined && parsed.max !== undefined) plan.ranges[spec.key] = { min: parsed.min, max: parsed.max };
+      built.addFindings(parsed.findings);
+      if (parsed.min !== undefined && parsed.max !== undefined) (ranges ??= {})[spec.key] = { min: parsed.min, max: parsed.max };
       continue;
     }
     const unknown = parseUnknown(entry.valueText, entry.valueSpan.start);
     if (unknown) {
-      plan.findings.push(...unknown.findings);
-      if (!unknown.findings.some((f) => f.severity === 'error')) plan.unknowns.push({ key: spec.key, spec, entry, span: unknown.span, allowed: unknown.allowed });
+      built.addFindings(unknown.findings);
+      if (!hasError(unknown.findings)) built.unknown({ key: spec.key, spec, entry, span: unknown.span, allowed: unknown.allowed });
       continue;
     }
     const register = registerValue(spec, entry, quantityKeys, source, dataModel);
-    if (register && 'finding' in register) { plan.findings.push(register.finding); continue; }
+    if (register && 'finding' in register) { built.finding(register.finding); continue; }
     if (register) {
-      for (const id of register.identifiers) if (!plan.identifiers.some((known) => known.name === id.name)) plan.identifiers.push(id);
-      plan.slots.set(spec.key, { key: spec.key, spec, entry, evaluate: () => register.value, blockRefs: [] });
+      const identifiers = built.identifiers;
+      for (let r = 0; r < register.identifiers.length; r++) {
+        const id = register.identifiers[r];
+        let known = false;
+        for (let k = 0; k < identifiers.length && !known; k++) known = identifiers[k].name === id.name;
+        if (!known) identifiers.push(id);
+      }
+      const value = register.value;
+      slots.set(spec.key, { key: spec.key, spec, entry, evaluate: () => value, blockRefs: none, tolerance: undefined, upstream: undefined, soleIdentifier: undefined, expr: undefined });
       continue;
     }
     const parsed = parseValue(entry.valueText, entry.valueSpan.start);
+    const parseFindings = parsed.findings;
     // A value the parser refuses (`1e400` out of range) is still the key's problem: the message names it.
-    plan.findings.push(...parsed.findings.map((f) => (f.severity === 'error' && !f.message.includes(`\`${entry.key}\``) ? { ...f, message: `\`${entry.key}\`: ${f.message}` } : f)));
+    for (let f = 0; f < parseFindings.length; f++) {
+      const finding = parseFindings[f];
+      built.finding(finding.severity === 'error' && !finding.message.includes(`\`${entry.key}\``) ? { ...finding, message: `\`${entry.key}\`: ${finding.message}` } : finding);
+    }
     if (parsed.unknown) {
-      plan.unknowns.push({ key: spec.key, spec, entry, span: parsed.unknown });
+      built.unknown({ key: spec.key, spec, entry, span: parsed.unknown, allowed: undefined });
       continue;
     }
-    if (!parsed.expr || parsed.findings.some((f) => f.severity === 'error')) continue;
+    if (!parsed.expr || hasError(parseFindings)) continue;
     const toleranceProblem = toleranceMismatch(parsed.tolerance, parsed.toleranceDim, spec.dim, entry.key);
     if (toleranceProblem) {
-      plan.findings.push(error(Code.valueTolerance, toleranceProblem, parsed.toleranceSpan ?? entry.valueSpan));
+      built.finding(error(Code.valueTolerance, toleranceProblem, parsed.toleranceSpan ?? entry.valueSpan));
       continue;
     }
-    const slot = compileSlot(plan, spec, entry, parsed.expr, parsed.tolerance, quantityKeys, source, dataModel, references);
-    if (slot) plan.slots.set(spec.key, slot);
+    const slot = compileSlot(built, spec, entry, parsed.expr, parsed.tolerance, quantityKeys, source, dataModel, references);
+    if (!slot) continue;
+    slots.set(spec.key, slot);
+    const t = slot.tolerance;
+    if (t && (t.plus > 0 || t.minus > 0)) built.toleranced(spec.key);
   }
   for (let i = 0; i < model.params.length; i++) {
     const spec = model.params[i];
-    if (spec.kind === 'choice' && !(spec.key in plan.choices)) plan.choices[spec.key] = spec.default;
+    if (spec.kind === 'choice' && !(spec.key in choices)) choices[spec.key] = spec.default;
   }
-  const ordered = evaluationOrder(plan, raw);
-  plan.findings.push(...ordered.findings);
+  const blockEntries = entries ?? new Map(raw.entries.map((e) => [e.key, e]));
+  const ordered = evaluationOrder({ model, entries: blockEntries, slots, unknowns: built.unknowns }, raw);
+  built.addFindings(ordered.findings);
   const specs = keys.quantities;
-  plan.order = ordered.order;
-  plan.steps = ordered.order.map((key): Step => ({ key, slot: plan.slots.get(key), spec: specs.get(key) }));
-  for (const slot of plan.slots.values()) if (slot.blockRefs.length || slot.upstream) plan.readsEnv = true;
-  // Complete once built: the evaluation reads the plan and never writes to it (core/analyze/evaluate.ts).
-  return Object.freeze(plan);
+  const order = ordered.order;
+  const steps: Step[] = new Array(order.length);
+  for (let i = 0; i < order.length; i++) {
+    const key = order[i];
+    steps[i] = { key, slot: slots.get(key), spec: specs.get(key) };
+  }
+  return {
+    model,
+    name: raw.name,
+    entries: blockEntries,
+    slots,
+    order,
+    externalLookups: built.externalLookups ?? noLookups,
+    choices,
+    lists: lists ?? {},
+    ranges: ranges ?? {},
+    unknowns: built.unknowns,
+    findings: built.findings,
+    identifiers: built.identifiers,
+    references: built.references,
+    upstreamInputs: built.upstreamInputs,
+    steps,
+    readsEnv: built.readsEnv,
+    ownToleranced: built.ownToleranced,
+  };
+}
+
+/*
+ * The resolver dimOf and compileValue call back while one slot compiles, as plain functions over the slot being
+ * compiled rather than closures made per slot. Both are called only during compileSlot, which nothing re-enters.
+ */
+let compilingKey = '';
+let compilingKeys: ReadonlyMap<string, QuantityParam> = new Map();
+let compilingDims: Map<string, Dim> | undefined;
+let compilingRefs: ReadonlyArray<readonly [string, string]> = none;
+let compilingLookups: ReadonlyMap<string, IdentifierLookup & { ok: true }> | undefined;
+
+function dimOfName(name: string): Dim {
+  const fromBlock = compilingDims?.get(name);
+  if (fromBlock !== undefined) return fromBlock;
+  const key = name.toLowerCase();
+  if (key !== compilingKey) {
+    const spec = compilingKeys.get(key);
+    if (spec) return spec.dim;
+  }
+  return '';
+}
+
+// Firmware constants are fixed for the plan: compiled in as numbers, so only block references read the
+// environment, and a name one slot reads from firmware and another as a block key cannot collide.
+function firmwareConstant(name: string): number | undefined {
+  const refs = compilingRefs;
+  for (let i = 0; i < refs.length; i++) if (refs[i][0] === name) return undefined;
+  return compilingLookups?.get(name)?.value;
 }
 
 function compileSlot(
-  plan: Plan,
+  plan: PlanBuilder,
   spec: QuantityParam,
   entry: BlockEntry,
   expr: ValueNode,
@@ -211,66 +338,69 @@ function compileSlot(
   dataModel: DataModelName,
   references: ReferenceSource,
 ): Slot | undefined {
-  const blockRefs: Array<[string, string]> = [];
-  const upstream: Array<[string, BlockOutput, string]> = [];
+  let blockRefs: Array<[string, string]> | undefined;
+  let upstream: Array<[string, BlockOutput, string]> | undefined;
   let upstreamDims: Map<string, Dim> | undefined;
   let failed = false;
-  const idents = identifiersOf(expr);
-  for (let i = 0; i < idents.length; i++) {
-    const ident = idents[i];
+  // A value that is one name (`clock: SYS_CLOCK_HZ`, the common firmware shape) needs no list of its names.
+  const idents = expr.kind === 'ident' ? undefined : identifiersOf(expr, []);
+  const count = idents ? idents.length : 1;
+  for (let i = 0; i < count; i++) {
+    const ident = idents ? idents[i] : (expr as IdentNode);
     if (ident.ref) {
       const found = references.resolve(ident.ref);
       if (!found.ok) {
-        plan.findings.push(error(found.code, found.message, ident.span));
+        plan.finding(error(found.code, found.message, ident.span));
         failed = true;
         continue;
       }
       (upstreamDims ??= new Map()).set(ident.name, found.dim);
-      if (!upstream.some(([name]) => name === ident.name)) upstream.push([ident.name, found.output, found.result]);
+      upstream ??= [];
+      let listed = false;
+      for (let u = 0; u < upstream.length && !listed; u++) listed = upstream[u][0] === ident.name;
+      if (!listed) upstream.push([ident.name, found.output, found.result]);
       const { output } = found;
-      plan.references.push({ name: output.name, result: found.result, uri: output.uri, line: output.line, value: output.values[found.result], circuit: output.circuit, span: ident.span, key: spec.key });
-      for (const input of output.inputs) if (!plan.upstreamInputs.some((i) => i.id === input.id)) plan.upstreamInputs.push(input);
+      plan.reference({ name: output.name, result: found.result, uri: output.uri, line: output.line, value: output.values[found.result], circuit: output.circuit, span: ident.span, key: spec.key });
+      for (let u = 0; u < output.inputs.length; u++) plan.upstreamInput(output.inputs[u]);
       continue;
     }
     const asKey = ident.name.toLowerCase();
-    if (quantityKeys.has(asKey) && asKey !== spec.key) {
-      blockRefs.push([ident.name, asKey]);
+    if (asKey !== spec.key && quantityKeys.has(asKey)) {
+      (blockRefs ??= []).push([ident.name, asKey]);
       continue;
     }
-    if (plan.externalLookups.has(ident.name)) continue;
+    if (plan.externalLookups?.has(ident.name)) continue;
     const found = source.lookup(ident.name, dataModel);
     if (!found.ok) {
-      plan.findings.push(error(found.code || Code.identifierUnknown, found.message, ident.span));
+      plan.finding(error(found.code || Code.identifierUnknown, found.message, ident.span));
       failed = true;
       continue;
     }
-    plan.externalLookups.set(ident.name, found);
+    (plan.externalLookups ??= new Map()).set(ident.name, found);
     plan.identifiers.push(found.identifier);
   }
   if (failed) return undefined;
-  const dim = dimOf(expr, (name) => {
-    const fromBlock = upstreamDims?.get(name);
-    if (fromBlock !== undefined) return fromBlock;
-    const key = name.toLowerCase();
-    if (quantityKeys.has(key) && key !== spec.key) return quantityKeys.get(key)!.dim;
-    return '';
-  });
+  compilingKey = spec.key;
+  compilingKeys = quantityKeys;
+  compilingDims = upstreamDims;
+  compilingRefs = blockRefs ?? none;
+  compilingLookups = plan.externalLookups;
+  const dim = dimOf(expr, dimOfName);
+  compilingDims = undefined;
   if ('finding' in dim) {
-    plan.findings.push(dim.finding);
+    plan.finding(dim.finding);
     return undefined;
   }
   if (dim.dim !== '' && dim.dim !== spec.dim && !(spec.dim === '' && dim.dim === '%')) {
-    plan.findings.push(
+    plan.finding(
       error(Code.keyDimension, `\`${entry.key}\` is ${describeDim(spec.dim)}, but \`${entry.valueText}\` is ${describeDim(dim.dim)}`, entry.valueSpan),
     );
     return undefined;
   }
-  const soleIdentifier = expr.kind === 'ident' && !expr.ref && blockRefs.length === 0 ? expr.name : undefined;
-  // Firmware constants are fixed for the plan: compiled in as numbers, so only block references read the
-  // environment, and a name one slot reads from firmware and another as a block key cannot collide.
-  const refNames = blockRefs.length ? new Set(blockRefs.map(([name]) => name)) : undefined;
-  const constant = (name: string) => (refNames?.has(name) ? undefined : plan.externalLookups.get(name)?.value);
-  const slot: Slot = { key: spec.key, spec, entry, evaluate: compileValue(expr, constant), blockRefs, tolerance, soleIdentifier, expr };
-  if (upstream.length) slot.upstream = upstream;
-  return slot;
+  const soleIdentifier = expr.kind === 'ident' && !expr.ref && !blockRefs ? expr.name : undefined;
+  const evaluate = compileValue(expr, firmwareConstant);
+  compilingDims = undefined;
+  compilingLookups = undefined;
+  if (blockRefs || upstream) plan.readsEnv = true;
+  return { key: spec.key, spec, entry, evaluate, blockRefs: blockRefs ?? none, tolerance, upstream, soleIdentifier, expr };
 }

@@ -30,7 +30,7 @@ function widen(ranges: Record<string, SpreadRange>, results: Record<string, numb
   }
 }
 
-export function worstCase(plan: Plan, keys: string[], overrides?: Record<string, number>): Record<string, SpreadRange> {
+export function worstCase(plan: Plan, keys: readonly string[], overrides?: Record<string, number>): Record<string, SpreadRange> {
   const ranges: Record<string, SpreadRange> = {};
   if (keys.length === 0) return ranges;
   const steps = keys.length <= gridLimit ? [-1, 0, 1] : [-1, 1];
@@ -72,7 +72,7 @@ interface Swing {
 }
 
 /** Each input's one-at-a-time swing over the sum of swings: which part is worth buying tighter. */
-function addShares(plan: Plan, keys: string[], ranges: Record<string, SpreadRange>, overrides?: Record<string, number>, known?: Map<string, Swing>): void {
+function addShares(plan: Plan, keys: readonly string[], ranges: Record<string, SpreadRange>, overrides?: Record<string, number>, known?: Map<string, Swing>): void {
   const swings: Record<string, Record<string, number>> = {};
   for (const key of keys) {
     const seen = known?.get(key);
@@ -98,7 +98,7 @@ function addShares(plan: Plan, keys: string[], ranges: Record<string, SpreadRang
  * Monte Carlo with every toleranced input uniform over its band (a part's tolerance is a bound, not a sigma:
  * uniform is the cautious reading, common practice for tolerance stacks without distribution data).
  */
-export function monteCarlo(plan: Plan, keys: string[], samples: number, seed: number, ranges: Record<string, SpreadRange>, overrides?: Record<string, number>): void {
+export function monteCarlo(plan: Plan, keys: readonly string[], samples: number, seed: number, ranges: Record<string, SpreadRange>, overrides?: Record<string, number>): void {
   const random = mulberry32(seed);
   const collected = new Map<string, { store: Float64Array; count: number }>();
   const offsets: Record<string, number> = {};
