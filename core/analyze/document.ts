@@ -13,8 +13,8 @@ import { firmwareEntry } from './keys';
 export interface PreparedBlock {
   raw: RawBlock;
   context: BlockContext;
-  /** Findings on the block found before analysis (a `from:` that cannot be read). */
-  extra: Finding[];
+  /** Findings on the block found before analysis (a `from:` that cannot be read); one shared empty list when none. */
+  extra: readonly Finding[];
 }
 
 export interface PreparedDocument {
@@ -23,6 +23,9 @@ export interface PreparedDocument {
   /** The document's analysis from its blocks' analyses, in document order. */
   finish(analyses: BlockAnalysis[]): DocumentAnalysis;
 }
+
+/** The findings of a block without any found before analysis: shared, never added to. */
+const noExtra: readonly Finding[] = Object.freeze([]);
 
 /** The one notice for a file above the size setting; the CLI uses it too, before reading such a file. */
 export function tooLargeAnalysis(uri: string, options: Pick<AnalyzeOptions, 'maxFileBytes'>): DocumentAnalysis {
@@ -53,17 +56,19 @@ export function prepareDocument(doc: TextDocumentLike, options: AnalyzeOptions):
   for (let b = 0; b < blocks.length; b++) {
     const raw = blocks[b];
     let source: IdentifierSource = own ?? noIdentifiers;
-    const extra: Finding[] = [];
+    let extra = noExtra;
     const firmware = firmwareEntry(raw.entries);
     if (firmware) {
-      if (isC) extra.push({ severity: 'warning', code: Code.firmwareInC, message: `\`${firmware.key}:\` names a note's firmware file; a block in C reads the constants of its own file and its includes`, span: firmware.keySpan });
+      const found: Finding[] = [];
+      extra = found;
+      if (isC) found.push({ severity: 'warning', code: Code.firmwareInC, message: `\`${firmware.key}:\` names a note's firmware file; a block in C reads the constants of its own file and its includes`, span: firmware.keySpan });
       else {
-        if (firmware.key === 'from') extra.push({ severity: 'info', code: Code.keyRenamed, message: '`from:` for a firmware file is now `firmware:` (`from:` is rc-delay\'s start voltage); it is still read', span: firmware.keySpan, fixes: [{ title: 'Rename `from:` to `firmware:`', edits: [{ uri: doc.uri, span: firmware.keySpan, newText: 'firmware' }] }] });
+        if (firmware.key === 'from') found.push({ severity: 'info', code: Code.keyRenamed, message: '`from:` for a firmware file is now `firmware:` (`from:` is rc-delay\'s start voltage); it is still read', span: firmware.keySpan, fixes: [{ title: 'Rename `from:` to `firmware:`', edits: [{ uri: doc.uri, span: firmware.keySpan, newText: 'firmware' }] }] });
         const spelled = firmware.valueText.trim();
         let entry = fromSources.get(spelled);
         if (!entry) fromSources.set(spelled, (entry = fromFileSource(doc.uri, spelled, options)));
         if (entry.source) source = entry.source;
-        else extra.push({ severity: 'error', code: Code.cInclude, message: entry.problem ?? `cannot read \`${spelled}\``, span: firmware.valueSpan });
+        else found.push({ severity: 'error', code: Code.cInclude, message: entry.problem ?? `cannot read \`${spelled}\``, span: firmware.valueSpan });
       }
     }
     used.add(source);

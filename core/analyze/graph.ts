@@ -33,13 +33,19 @@ export interface ReferenceGraph {
   referenced: Set<number>;
 }
 
+/** One empty list for every block without references: nothing adds to it. */
+const noRefs: BlockRef[] = Object.freeze([]) as unknown as BlockRef[];
+
 /** References written in a block's circuit values (claims and settings state numbers, not references). */
 export function blockReferences(raw: RawBlock): BlockRef[] {
-  const refs: BlockRef[] = [];
+  let refs = noRefs;
   for (let i = 0; i < raw.entries.length; i++) {
     const entry = raw.entries[i];
-    if (isMetaEntry(entry.key, entry.valueText) || !entry.valueText.includes('@')) continue;
-    refs.push(...referencesIn(entry.valueText, entry.valueSpan.start));
+    if (!entry.valueText.includes('@') || isMetaEntry(entry.key, entry.valueText)) continue;
+    const found = referencesIn(entry.valueText, entry.valueSpan.start);
+    if (found.length === 0) continue;
+    if (refs === noRefs) refs = [];
+    for (let r = 0; r < found.length; r++) refs.push(found[r]);
   }
   return refs;
 }
@@ -49,14 +55,17 @@ const noResolutions = new Map<string, Resolution>();
 
 export function buildGraph(blocks: readonly GraphBlock[]): ReferenceGraph {
   const byName = new Map<string, number[]>();
-  blocks.forEach((b, i) => {
-    if (b.raw.name === undefined) return;
-    const list = byName.get(b.raw.name);
+  for (let i = 0; i < blocks.length; i++) {
+    const name = blocks[i].raw.name;
+    if (name === undefined) continue;
+    const list = byName.get(name);
     if (list) list.push(i);
-    else byName.set(b.raw.name, [i]);
-  });
+    else byName.set(name, [i]);
+  }
   const duplicates = new Map<number, Finding>();
-  for (const [name, list] of byName) {
+  byName.forEach((list, name) => {
+    // A name only one block has cannot be repeated in a file.
+    if (list.length < 2) return;
     for (const i of list) {
       const others = list.filter((j) => j !== i && blocks[j].uri === blocks[i].uri);
       if (others.length === 0 || !blocks[i].raw.nameSpan) continue;
@@ -67,7 +76,7 @@ export function buildGraph(blocks: readonly GraphBlock[]): ReferenceGraph {
         span: blocks[i].raw.nameSpan,
       });
     }
-  }
+  });
 
   let linked = false;
   const resolutions = blocks.map((block) => {

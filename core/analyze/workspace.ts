@@ -9,7 +9,7 @@ import type { AnalyzeOptions, BlockContext, BlockOutput, ComputedBlock, Offsets,
 import { AnalysisCache, type CacheStats } from './cache';
 import { ConstantTableCache } from './tables';
 import { prepareDocument, tooLargeAnalysis, type PreparedDocument } from './document';
-import { buildGraph, type GraphBlock } from './graph';
+import { buildGraph, type GraphBlock, type Resolution } from './graph';
 import { lookupResult } from './references';
 import { nested, upstreamEpoch } from './evaluate';
 
@@ -26,16 +26,21 @@ export function analyzeWorkspace(
     return isTooLarge(doc.text, own.maxFileBytes) ? tooLargeAnalysis(doc.uri, own) : prepare(doc, own);
   });
   const graphBlocks: GraphBlock[] = [];
-  const slots: Array<{ doc: number; block: number }> = [];
-  prepared.forEach((p, d) => {
-    if (!('finish' in p) || p.blocks.length === 0) return;
+  // Where each graph block stands: its document, and its index there (two lists rather than a record per block).
+  const docOf: number[] = [];
+  const indexIn: number[] = [];
+  for (let d = 0; d < prepared.length; d++) {
+    const p = prepared[d];
+    if (!('finish' in p) || p.blocks.length === 0) continue;
     // One document, one options object (prepareDocument): its shown path is worked out once.
     const path = shownPath(p.uri, p.blocks[0].context.options);
-    p.blocks.forEach((b, i) => {
+    for (let i = 0; i < p.blocks.length; i++) {
+      const b = p.blocks[i];
       graphBlocks.push({ uri: p.uri, path, raw: b.raw, line: b.context.line });
-      slots.push({ doc: d, block: i });
-    });
-  });
+      docOf.push(d);
+      indexIn.push(i);
+    }
+  }
   const graph = buildGraph(graphBlocks);
   const outputs: Array<BlockOutput | undefined> = new Array(graphBlocks.length);
   const problems: Array<string | undefined> = new Array(graphBlocks.length);
@@ -48,20 +53,17 @@ export function analyzeWorkspace(
   });
 
   try {
-    for (const v of graph.order) {
-      const { doc, block } = slots[v];
+    const order = graph.order;
+    for (let o = 0; o < order.length; o++) {
+      const v = order[o];
+      const doc = docOf[v];
       const p = prepared[doc] as PreparedDocument;
-      const item = p.blocks[block];
+      const item = p.blocks[indexIn[v]];
       const resolutions = graph.resolutions[v];
-      const references: ReferenceSource = {
-        resolve(ref) {
-          const resolution = resolutions.get(ref.block);
-          if (!resolution) return lookupResult(ref, undefined, 'not found');
-          if ('problem' in resolution) return { ok: false, ...resolution.problem };
-          return lookupResult(ref, outputs[resolution.target], problems[resolution.target]);
-        },
-      };
+      // A block whose values name no other block shares one source: every name it might still ask is not found.
+      const references: ReferenceSource = resolutions.size === 0 ? unresolved : resolvedBy(resolutions, outputs, problems);
       const name = item.raw.name;
+      const referenced = graph.referenced.has(v);
       // Results are handed on only where a reference reads them; a cache keeps them for later passes itself.
       const context: BlockContext = {
         uri: item.context.uri,
@@ -69,22 +71,42 @@ export function analyzeWorkspace(
         options: item.context.options,
         source: item.context.source,
         references,
-        computed: name !== undefined && graph.referenced.has(v) ? (computed, values) => (outputs[v] = outputOf(computed, values, item.context, name)) : undefined,
+        computed: name !== undefined && referenced ? handOn(outputs, v, item.context, name) : undefined,
       };
       const cache = caches.get(doc);
       const analysis = cache ? cache.analyzeBlock(item.raw, context) : analyzeBlock(item.raw, context);
       const output = outputs[v];
       // Worked out when a dependant's cache first asks.
-      if (output) output.fingerprint = once(() => fingerprintOf(analysis, output));
-      else if (graph.referenced.has(v)) problems[v] = analysis.findings.some((f) => f.severity === 'error') ? 'it has errors' : 'its results could not be computed';
+      if (output) output.fingerprint = fingerprintLater(analysis, output);
+      else if (referenced) problems[v] = analysis.findings.some((f) => f.severity === 'error') ? 'it has errors' : 'its results could not be computed';
       const duplicate = graph.duplicates.get(v);
       if (duplicate) analysis.findings.unshift(duplicate);
-      analyses[doc][block] = analysis;
+      analyses[doc][indexIn[v]] = analysis;
     }
   } finally {
     for (const cache of caches.values()) cache?.end();
   }
   return prepared.map((p, d) => ('finish' in p ? p.finish(analyses[d]) : p));
+}
+
+/** The references of a block that names no other block: any it asks for is not found. */
+const unresolved: ReferenceSource = { resolve: (ref) => lookupResult(ref, undefined, 'not found') };
+
+/** The references of a block that names others, read from the outputs of the blocks analysed before it. */
+function resolvedBy(resolutions: Map<string, Resolution>, outputs: Array<BlockOutput | undefined>, problems: Array<string | undefined>): ReferenceSource {
+  return {
+    resolve(ref) {
+      const resolution = resolutions.get(ref.block);
+      if (!resolution) return lookupResult(ref, undefined, 'not found');
+      if ('problem' in resolution) return { ok: false, ...resolution.problem };
+      return lookupResult(ref, outputs[resolution.target], problems[resolution.target]);
+    },
+  };
+}
+
+/** Where a referenced block's computed results are kept for its dependants. */
+function handOn(outputs: Array<BlockOutput | undefined>, v: number, context: BlockContext, name: string): NonNullable<BlockContext['computed']> {
+  return (computed, values) => (outputs[v] = outputOf(computed, values, context, name));
 }
 
 function shownPath(uri: string, options: AnalyzeOptions): string {
@@ -136,6 +158,10 @@ function once<T>(compute: () => T): () => T {
     }
     return value;
   };
+}
+
+function fingerprintLater(analysis: BlockAnalysis, output: BlockOutput): () => string {
+  return once(() => fingerprintOf(analysis, output));
 }
 
 /** Everything a dependant's numbers rest on: the results, their spread, the inputs and their tolerances. */

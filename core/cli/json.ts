@@ -38,6 +38,9 @@ function pathShower(cwd: string): (uri: string) => string {
   };
 }
 
+/** What an empty list writes: shared by every block without references or diagnostics. */
+const none: readonly never[] = Object.freeze([]);
+
 function block(analysis: BlockAnalysis, file: CheckedFile, shownPath: (uri: string) => string) {
   const out: Record<string, unknown> = {
     name: analysis.name,
@@ -49,11 +52,30 @@ function block(analysis: BlockAnalysis, file: CheckedFile, shownPath: (uri: stri
   if (analysis.spread) out.spread = withStartup(analysis.spread);
   if (analysis.solved) out.solved = analysis.solved;
   // `uri` is where the constant is defined as the analysis read it; `file` is that path as `path` shows a file.
-  if (analysis.identifiers.length) out.identifiers = analysis.identifiers.map((i) => ({ name: i.name, value: i.value, uri: i.uri, line: i.line, file: shownPath(i.uri) }));
+  const identifiers = analysis.identifiers;
+  if (identifiers.length) {
+    const shown = new Array(identifiers.length);
+    for (let i = 0; i < identifiers.length; i++) {
+      const id = identifiers[i];
+      shown[i] = { name: id.name, value: id.value, uri: id.uri, line: id.line, file: shownPath(id.uri) };
+    }
+    out.identifiers = shown;
+  }
   // `file` and `line` locate the referenced block; `value` is the number it supplied.
-  out.references = (analysis.references ?? []).map((r) => ({ name: r.name, result: r.result, file: shownPath(r.uri), line: r.line, value: r.value }));
-  out.diagnostics = analysis.findings.map((f) => diagnostic(f, file, shownPath));
+  const references = analysis.references;
+  out.references = references?.length ? referencesShown(references, shownPath) : none;
+  const findings = analysis.findings;
+  out.diagnostics = findings.length ? diagnosticsOf(findings, file, shownPath) : none;
   return out;
+}
+
+// Apart from `block`, so a block with neither makes no closures.
+function referencesShown(references: NonNullable<BlockAnalysis['references']>, shownPath: (uri: string) => string) {
+  return references.map((r) => ({ name: r.name, result: r.result, file: shownPath(r.uri), line: r.line, value: r.value }));
+}
+
+function diagnosticsOf(findings: readonly Finding[], file: CheckedFile, shownPath: (uri: string) => string): JsonDiagnostic[] {
+  return findings.map((f) => diagnostic(f, file, shownPath));
 }
 
 /** `indent`: spaces per level for a reader at a terminal; none gives one line. */

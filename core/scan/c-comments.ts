@@ -128,50 +128,104 @@ function skipCode(text: string, from: number, to: number): number {
 }
 
 /**
- * Only `/`, `"` and `'` open a comment or a literal, so the native string search jumps from one to the next.
- * Names and numbers matter only next to a quote (`R"(`, `1'000`): from the last character that cannot be part
- * of a token before the quote, the same token rules are walked forward as a full character scan would.
+ * The comments of a text one at a time, each read into the cursor's own fields: a scan that looks at each comment
+ * once keeps no record per comment. Only `/`, `"` and `'` open a comment or a literal, so the native string search
+ * jumps from one to the next. Names and numbers matter only next to a quote (`R"(`, `1'000`): from the last
+ * character that cannot be part of a token before the quote, the same token rules are walked forward as a full
+ * character scan would.
  */
-export function findComments(text: string): CComment[] {
-  const comments: CComment[] = [];
-  let slash = text.indexOf('/');
-  let double = text.indexOf('"');
-  let single = text.indexOf("'");
-  let i = 0;
-  for (;;) {
-    if (slash >= 0 && slash < i) slash = text.indexOf('/', i);
-    if (double >= 0 && double < i) double = text.indexOf('"', i);
-    if (single >= 0 && single < i) single = text.indexOf("'", i);
-    let at = slash;
-    if (double >= 0 && (at < 0 || double < at)) at = double;
-    if (single >= 0 && (at < 0 || single < at)) at = single;
-    if (at < 0) break;
-    const ch = text.charCodeAt(at);
-    if (ch !== 47) {
-      let from = at;
-      while (from > i && isTokenChar(text.charCodeAt(from - 1))) from--;
-      const reached = skipCode(text, from, at);
-      if (reached > at) {
-        i = reached;
+export class CommentCursor implements CComment {
+  declare kind: 'line' | 'block';
+  declare start: number;
+  declare end: number;
+  declare closeAt: number;
+  declare terminated: boolean;
+  private declare readonly text: string;
+  private declare i: number;
+  private declare slash: number;
+  private declare double: number;
+  private declare single: number;
+
+  constructor(text: string) {
+    this.text = text;
+    this.kind = 'line';
+    this.start = 0;
+    this.end = 0;
+    this.closeAt = 0;
+    this.terminated = true;
+    this.i = 0;
+    this.slash = text.indexOf('/');
+    this.double = text.indexOf('"');
+    this.single = text.indexOf("'");
+  }
+
+  /** Moves to the next comment; false when there is none. */
+  next(): boolean {
+    const text = this.text;
+    let i = this.i;
+    let slash = this.slash;
+    let double = this.double;
+    let single = this.single;
+    let found = false;
+    for (;;) {
+      if (slash >= 0 && slash < i) slash = text.indexOf('/', i);
+      if (double >= 0 && double < i) double = text.indexOf('"', i);
+      if (single >= 0 && single < i) single = text.indexOf("'", i);
+      let at = slash;
+      if (double >= 0 && (at < 0 || double < at)) at = double;
+      if (single >= 0 && (at < 0 || single < at)) at = single;
+      if (at < 0) break;
+      const ch = text.charCodeAt(at);
+      if (ch !== 47) {
+        let from = at;
+        while (from > i && isTokenChar(text.charCodeAt(from - 1))) from--;
+        const reached = skipCode(text, from, at);
+        if (reached > at) {
+          i = reached;
+          continue;
+        }
+        i = quotedEnd(text, at, ch);
         continue;
       }
-      i = quotedEnd(text, at, ch);
-      continue;
+      const next = text.charCodeAt(at + 1);
+      if (next === 47) {
+        const end = lineCommentEnd(text, at + 2);
+        this.kind = 'line';
+        this.start = at;
+        this.end = end;
+        this.closeAt = end;
+        this.terminated = true;
+        i = end;
+        found = true;
+        break;
+      } else if (next === 42) {
+        const close = text.indexOf('*/', at + 2);
+        this.kind = 'block';
+        this.start = at;
+        this.closeAt = close < 0 ? text.length : close;
+        this.end = close < 0 ? text.length : close + 2;
+        this.terminated = close >= 0;
+        i = this.end;
+        found = true;
+        break;
+      } else {
+        i = at + 1;
+      }
     }
-    const next = text.charCodeAt(at + 1);
-    if (next === 47) {
-      const end = lineCommentEnd(text, at + 2);
-      comments.push({ kind: 'line', start: at, end, closeAt: end, terminated: true });
-      i = end;
-    } else if (next === 42) {
-      const close = text.indexOf('*/', at + 2);
-      const closeAt = close < 0 ? text.length : close;
-      const end = close < 0 ? text.length : close + 2;
-      comments.push({ kind: 'block', start: at, end, closeAt, terminated: close >= 0 });
-      i = end;
-    } else {
-      i = at + 1;
-    }
+    this.i = i;
+    this.slash = slash;
+    this.double = double;
+    this.single = single;
+    return found;
+  }
+}
+
+/** Every comment of the text, in order (CommentCursor's comments as records). */
+export function findComments(text: string): CComment[] {
+  const comments: CComment[] = [];
+  const cursor = new CommentCursor(text);
+  while (cursor.next()) {
+    comments.push({ kind: cursor.kind, start: cursor.start, end: cursor.end, closeAt: cursor.closeAt, terminated: cursor.terminated });
   }
   return comments;
 }

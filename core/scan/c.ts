@@ -5,7 +5,7 @@ import { Code } from '../codes';
 import { BLANK_CLASS, lineEndAt, nextLineAt, skipBlanks, trimEnd } from './lines';
 import { COLON_PATTERN, EntryCollector, KEY_PATTERN, readEntryLine } from './entry';
 import { ignoredHeaderText, readHeaderName, startsWithWord, type HeaderName } from './header';
-import { findComments, type CComment } from './c-comments';
+import { CommentCursor, type CComment } from './c-comments';
 
 /** A comment line's lead (blanks, stars, blanks), its key, and the colon with blanks around it (blanks as lines.ts). */
 const COMMENT_LEAD = new RegExp(`${BLANK_CLASS}*\\**${BLANK_CLASS}*`, 'y');
@@ -172,7 +172,8 @@ class LeftOutWatch {
 }
 
 function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carriageReturns: boolean, timing: TimingCursor): void {
-  const found: RawBlock[] = [];
+  // The comment's blocks go straight to `out`; those from `firstFound` on are this comment's.
+  const firstFound = out.length;
   let open: BlockBuilder | undefined;
   let pos = comment.start + 2;
   let first = true;
@@ -189,7 +190,7 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
       // and the comment (a watch for left-out lines has nothing after it to see).
       CLOSING_LINE.lastIndex = pos;
       if (CLOSING_LINE.test(text) && CLOSING_LINE.lastIndex === comment.closeAt + 1) {
-        found.push(open.build());
+        out.push(open.build());
         open = undefined;
         break;
       }
@@ -201,12 +202,12 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
     first = false;
     const opened = timing.within(from, to) ? header(text, from, to) : undefined;
     if (opened) {
-      if (open) found.push(open.build());
+      if (open) out.push(open.build());
       open = opened;
       watch?.reset();
     } else if (open && !open.take(text, from, to)) {
       const block = open.build();
-      found.push(block);
+      out.push(block);
       if (open.endedAtBlank) (watch ??= new LeftOutWatch()).blockEnded(block, open);
       else watch?.reset();
       open = undefined;
@@ -215,10 +216,10 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
     if (next <= pos || lineEnd >= comment.closeAt) break;
     pos = next;
   }
-  if (open) found.push(open.build());
+  if (open) out.push(open.build());
   if (!comment.terminated) {
-    for (const block of found) {
-      block.findings.unshift({
+    for (let i = firstFound; i < out.length; i++) {
+      out[i].findings.unshift({
         severity: 'error',
         code: Code.blockUnterminated,
         message: 'This `/*` comment is never closed with `*/`; the block ends at the end of the file.',
@@ -226,7 +227,6 @@ function scanBlockComment(text: string, comment: CComment, out: RawBlock[], carr
       });
     }
   }
-  for (let i = 0; i < found.length; i++) out.push(found[i]);
 }
 
 export function scanC(text: string): RawBlock[] {
@@ -244,9 +244,9 @@ function scan(text: string, timing: TimingCursor): RawBlock[] {
   let run: BlockBuilder | undefined;
   const watch = new LeftOutWatch();
   let lastLineComment = -1;
-  const comments = findComments(text);
-  for (let c = 0; c < comments.length; c++) {
-    const comment = comments[c];
+  // One cursor over the comments, read in place: no record per comment of the file.
+  const comment = new CommentCursor(text);
+  while (comment.next()) {
     if (comment.kind === 'block') {
       if (run) blocks.push(run.build());
       run = undefined;
