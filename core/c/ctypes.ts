@@ -141,7 +141,8 @@ export function commonType(a: CType, b: CType, ts: TypeSystem): CType {
   const x = promote(a, ts) as IntType;
   const y = promote(b, ts) as IntType;
   if (x.signed === y.signed) return x.rank >= y.rank ? x : y;
-  const [u, s] = x.signed ? [y, x] : [x, y];
+  const u = x.signed ? y : x;
+  const s = x.signed ? x : y;
   if (u.rank >= s.rank) return u;
   if (s.bits > u.bits) return s;
   return unsignedOf(s, ts);

@@ -3,7 +3,7 @@
 import { Code } from '../codes';
 import type { Span } from '../types';
 import type { EvalError } from './evaluate';
-import { tokenize, tokenizeSourceRange, withHide, type SourceToken } from './tokens';
+import { tokenize, tokenizePlainRange, tokenizeSourceRange, withHide, type SourceToken } from './tokens';
 
 export interface MacroDef {
   name: string;
@@ -23,16 +23,33 @@ export interface MacroDef {
  * text, its places and tokens made when read. A firmware file defines far more macros than a block reads.
  */
 export class PlainObjectMacro implements MacroDef {
-  readonly params = undefined;
-  readonly variadic = false;
+  // Fields are assigned in the constructor alone (declared, not defined): a firmware file makes thousands, most
+  // while the code still runs in the interpreter, where each defined class field costs a step of its own.
+  declare readonly params: undefined;
+  declare readonly variadic: false;
+  declare readonly name: string;
+  declare readonly uri: string;
+  declare readonly line: number;
+  /** The file's text; the line's start, the name's end (where the replacement list begins) and the line's end. */
+  declare private readonly source: string;
+  declare private readonly lineStart: number;
+  declare private readonly from: number;
+  declare private readonly to: number;
   /** Kept from the second expansion on (null: read once); a body read for its own value alone is not kept. */
-  private tokens: SourceToken[] | null | undefined;
+  declare private tokens: SourceToken[] | null | undefined;
 
-  constructor(
-    readonly name: string, readonly uri: string, readonly line: number,
-    /** The file's text; the line's start, the name's end (where the replacement list begins) and the line's end. */
-    private readonly source: string, private readonly lineStart: number, private readonly from: number, private readonly to: number,
-  ) {}
+  constructor(name: string, uri: string, line: number, source: string, lineStart: number, from: number, to: number) {
+    this.name = name;
+    this.uri = uri;
+    this.line = line;
+    this.source = source;
+    this.lineStart = lineStart;
+    this.from = from;
+    this.to = to;
+    this.params = undefined;
+    this.variadic = false;
+    this.tokens = undefined;
+  }
 
   get nameSpan(): Span {
     return { start: this.from - this.name.length, end: this.from };
@@ -54,7 +71,7 @@ export class PlainObjectMacro implements MacroDef {
 
   /** The replacement list tokenized afresh, not kept. */
   readBody(): SourceToken[] {
-    return this.tokens || tokenizeSourceRange(this.source, this.from, this.to, this.uri, []);
+    return this.tokens || tokenizePlainRange(this.source, this.from, this.to, this.uri) || tokenizeSourceRange(this.source, this.from, this.to, this.uri, []);
   }
 }
 
@@ -93,13 +110,18 @@ export function expandMacros(
 
 /** One expansion: its budget and context, as fields of one object rather than closures made per call. */
 class Expander {
-  private produced = 0;
+  // Assigned in the constructor, not defined as class fields (a step each per expansion in the interpreter).
+  declare private produced: number;
+  declare private readonly lookup: (name: string) => MacroDef | undefined;
+  declare private readonly limits: ExpandLimits;
+  declare private readonly inside: ReadonlySet<string> | undefined;
 
-  constructor(
-    private readonly lookup: (name: string) => MacroDef | undefined,
-    private readonly limits: ExpandLimits,
-    private readonly inside: ReadonlySet<string> | undefined,
-  ) {}
+  constructor(lookup: (name: string) => MacroDef | undefined, limits: ExpandLimits, inside: ReadonlySet<string> | undefined) {
+    this.produced = 0;
+    this.lookup = lookup;
+    this.limits = limits;
+    this.inside = inside;
+  }
 
   private limit(tok: SourceToken, what: string): never {
     throw new Stop({ err: `macro expansion ${what} (at '${tok.text}')`, code: Code.cExpansionLimit, tok });

@@ -49,10 +49,18 @@ export function parseExpression(tokens: SourceToken[], typedefName: (name: strin
 
 /** Precedence climbing over the tokens; one object per expression (methods, not closures made per call). */
 class Parser {
-  pos = 0;
-  private depth = 0;
+  // Assigned in the constructor, not defined as class fields (a step each per parse in the interpreter).
+  declare pos: number;
+  declare private depth: number;
+  declare private readonly tokens: SourceToken[];
+  declare private readonly typedefName: (name: string) => CType | TypeConflict | undefined;
 
-  constructor(private readonly tokens: SourceToken[], private readonly typedefName: (name: string) => CType | TypeConflict | undefined) {}
+  constructor(tokens: SourceToken[], typedefName: (name: string) => CType | TypeConflict | undefined) {
+    this.pos = 0;
+    this.depth = 0;
+    this.tokens = tokens;
+    this.typedefName = typedefName;
+  }
 
   private peek(): SourceToken | undefined {
     return this.tokens[this.pos];

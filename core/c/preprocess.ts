@@ -65,8 +65,10 @@ interface Frame {
 }
 
 // `#define NAME` up to the name's end, the name followed by white space or the line's end (else the macro is
-// function-like, or the line is not so plain).
+// function-like, or the line is not so plain); then a replacement list free of `\`, quotes and comments to the
+// line's end. A line both match is one logical line whose tokens are its text with white space between.
 const PLAIN_DEFINE_HEAD = /[ \t\f\v\r]*#[ \t\f\v\r]*define[ \t\f\v\r]+[A-Za-z_$][\w$]*(?=[ \t\f\v\r\n]|(?![\s\S]))/y;
+const PLAIN_REPLACEMENT = /(?:[ \t\f\v\r][^\n\\'"/]*(?:\/(?![/*])[^\n\\'"/]*)*)?(?=\n|(?![\s\S]))/y;
 const isNamePart = (c: number): boolean => (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || (c >= 48 && c <= 57) || c === 95 || c === 36;
 
 const MAX_INCLUDE_DEPTH = 200;
@@ -209,6 +211,14 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
           pos = plainEnd;
         }
       }
+      if (isLive) {
+        const end = definePlain(source, pos, uri, skimCountsLines ? nextLine : undefined);
+        if (end >= 0) {
+          lineNumber = nextLine++;
+          pos = end + 1;
+          continue;
+        }
+      }
       const at = skimLine(source, pos, skimmed);
       pos = at.end + 1;
       lineNumber = nextLine;
@@ -234,7 +244,6 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
         }
         continue;
       }
-      if (at.plain && at.newlines === 0 && live() && definePlain(source, at.start, at.end, uri, skimCountsLines ? lineNumber : undefined)) continue;
       const line = tokenizeSourceRange(source, at.start, at.end, uri, []);
       const hash = line[0];
       const name = line[1]?.text ?? '';
@@ -308,20 +317,24 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
   };
 
   /**
-   * `#define NAME replacement` on a line the skim found plain (no comment, literal or splice): the macro without
-   * tokenizing the line (see PlainObjectMacro). False, having done nothing, for any other line.
+   * `#define NAME replacement` on one line with no comment, literal or splice, starting at `start` (a line start):
+   * the macro without skimming or tokenizing the line (see PlainObjectMacro), and the line's end. -1, having done
+   * nothing, for any other line.
    */
-  const definePlain = (source: string, start: number, end: number, uri: string, lineNumber: number | undefined): boolean => {
+  const definePlain = (source: string, start: number, uri: string, lineNumber: number | undefined): number => {
     PLAIN_DEFINE_HEAD.lastIndex = start;
-    if (!PLAIN_DEFINE_HEAD.test(source)) return false;
-    // Read back from where the match ended (test() makes no match object): the name is the letters before it.
+    if (!PLAIN_DEFINE_HEAD.test(source)) return -1;
+    // Read back from where the matches ended (test() makes no match object): the name is the letters before it.
     const nameEnd = PLAIN_DEFINE_HEAD.lastIndex;
+    PLAIN_REPLACEMENT.lastIndex = nameEnd;
+    if (!PLAIN_REPLACEMENT.test(source)) return -1;
+    const end = PLAIN_REPLACEMENT.lastIndex;
     let nameStart = nameEnd - 1;
     while (isNamePart(source.charCodeAt(nameStart - 1))) nameStart--;
     const name = source.slice(nameStart, nameEnd);
     const line = lineNumber ?? lineOfFile.get(uri)?.(nameStart) ?? 1;
     current.macros.set(name, { kind: 'def', def: new PlainObjectMacro(name, uri, line, source, start, nameEnd, end) });
-    return true;
+    return end;
   };
 
   const inUndecidedBranch = (): boolean => {

@@ -19,11 +19,9 @@ export interface SkimmedLine {
   unterminatedAt: number;
   /** Newlines inside the logical line (splices, block comments), so a caller can count lines without a second pass. */
   newlines: number;
-  /** No comment, character or string literal, and no backslash in the line: its text is its tokens with white space between. */
-  plain: boolean;
 }
 
-export const emptySkim = (): SkimmedLine => ({ start: 0, end: 0, directive: false, keyword: false, boundaryEnd: -1, unterminatedAt: -1, newlines: 0, plain: true });
+export const emptySkim = (): SkimmedLine => ({ start: 0, end: 0, directive: false, keyword: false, boundaryEnd: -1, unterminatedAt: -1, newlines: 0 });
 
 const isIdentPart = (ch: number): boolean =>
   (ch >= 97 && ch <= 122) || (ch >= 65 && ch <= 90) || ch === 95 || ch === 36 || (ch >= 48 && ch <= 57);
@@ -80,7 +78,6 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
   out.keyword = false;
   out.boundaryEnd = -1;
   out.unterminatedAt = -1;
-  out.plain = true;
   let newlines = 0;
   let first = true;
   let i = from;
@@ -89,7 +86,6 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
     if (c === 10) break;
     if (c === 32 || c === 9 || c === 13 || c === 12 || c === 11) { i++; continue; }
     if (c === 92) {
-      out.plain = false;
       const s = splice(text, i);
       if (s) { i += s; newlines++; continue; }
       first = false;
@@ -100,7 +96,6 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
       const next = text.charCodeAt(i + 1);
       if (next === 47) {
         // A line comment ends at the newline unless a splice carries it on.
-        out.plain = false;
         i += 2;
         while (i < n && text.charCodeAt(i) !== 10) {
           const s = text.charCodeAt(i) === 92 ? splice(text, i) : 0;
@@ -110,7 +105,6 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
         continue;
       }
       if (next === 42) {
-        out.plain = false;
         const close = text.indexOf('*/', i + 2);
         if (close < 0) {
           out.unterminatedAt = i;
@@ -123,7 +117,6 @@ export function skimLine(text: string, from: number, out: SkimmedLine): SkimmedL
       }
     }
     if (c === 39 || c === 34) {
-      out.plain = false;
       let j = i + 1;
       while (j < n) {
         const d = text.charCodeAt(j);

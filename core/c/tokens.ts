@@ -217,3 +217,29 @@ export function withHide(t: SourceToken, hide: ReadonlySet<string>): SourceToken
   if (t.error !== undefined) copy.error = t.error;
   return copy;
 }
+
+// One C token of a line free of comments, literals and splices, as lexRange reads it: an identifier, a preprocessing
+// number (C11 6.4.8) or a punctuator, longest first (the order of PUNCTUATORS). Native, where lexRange walks
+// each character in JavaScript: a firmware's macro bodies are read while the code is still cold.
+const PLAIN_TOKEN = /[A-Za-z_$][\w$]*|\.?[0-9](?:[eEpP][+-]|[\w$.])*|\.\.\.|<<=|>>=|->|\+\+|--|<<|>>|<=|>=|==|!=|&&|\|\||[*/%+\-&^|]=|##|[[\](){}.&*+\-~!/%<>^|?:;=,#]/y;
+
+/**
+ * The tokens of text[from, to), which holds no comment, character or string literal, backslash or newline, as
+ * tokenizeSourceRange gives them; undefined when the range holds anything else (a character C has no token for),
+ * which tokenizeSourceRange then reads.
+ */
+export function tokenizePlainRange(text: string, from: number, to: number, uri: string): SourceToken[] | undefined {
+  const out: SourceToken[] = [];
+  for (let i = from; ;) {
+    while (i < to && (CLASS[text.charCodeAt(i)] & SPACE) !== 0) i++;
+    if (i >= to) return out;
+    PLAIN_TOKEN.lastIndex = i;
+    if (!PLAIN_TOKEN.test(text)) return undefined;
+    const end = PLAIN_TOKEN.lastIndex;
+    if (end > to) return undefined;
+    const c = text.charCodeAt(i);
+    const kind: TokenKind = (CLASS[c] & IDENT_START) !== 0 ? 'ident' : isDigitCode(c) || (c === 46 && end - i > 1 && isDigitCode(text.charCodeAt(i + 1))) ? 'number' : 'punct';
+    out.push({ kind, text: text.slice(i, end), start: i, end, uri });
+    i = end;
+  }
+}
