@@ -105,11 +105,12 @@ function moved(table: ConstantTable, filePath: string, before: Stripped, after: 
     if (!d || d.uri !== filePath) return d;
     const nameSpan = span(d.nameSpan);
     return {
-      ...d,
+      name: d.name,
+      uri: d.uri,
+      line: (lines ??= new LineCounter(after.text)).lineOf(nameSpan.start) + 1,
       span: span(d.span),
       nameSpan,
-      line: (lines ??= new LineCounter(after.text)).lineOf(nameSpan.start) + 1,
-      ...(d.literal ? { literal: { ...d.literal, span: span(d.literal.span) } } : {}),
+      literal: d.literal ? { ...d.literal, span: span(d.literal.span) } : undefined,
     };
   };
   const resolution = (r: ConstantResolution): ConstantResolution => {

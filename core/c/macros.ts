@@ -23,18 +23,18 @@ export interface MacroDef {
  * text, its places and tokens made when read. A firmware file defines far more macros than a block reads.
  */
 export class PlainObjectMacro implements MacroDef {
-  // Fields are assigned in the constructor alone (declared, not defined): a firmware file makes thousands, most
-  // while the code still runs in the interpreter, where each defined class field costs a step of its own.
+  // Fields are assigned in the constructor alone (declared, not defined): each defined class field costs a step of
+  // its own while the code still runs in the interpreter.
   declare readonly params: undefined;
   declare readonly variadic: false;
   declare readonly name: string;
   declare readonly uri: string;
   declare readonly line: number;
   /** The file's text; the line's start, the name's end (where the replacement list begins) and the line's end. */
-  declare private readonly source: string;
-  declare private readonly lineStart: number;
-  declare private readonly from: number;
-  declare private readonly to: number;
+  declare readonly source: string;
+  declare readonly lineStart: number;
+  declare readonly from: number;
+  declare readonly to: number;
   /** Kept from the second expansion on (null: read once); a body read for its own value alone is not kept. */
   declare private tokens: SourceToken[] | null | undefined;
 
@@ -51,15 +51,21 @@ export class PlainObjectMacro implements MacroDef {
     this.tokens = undefined;
   }
 
-  get nameSpan(): Span {
-    return { start: this.from - this.name.length, end: this.from };
+  /** It is its own binding in a scope (core/c/scope.ts): one object per macro read. */
+  get kind(): 'def' {
+    return 'def';
   }
 
-  /** From '#' to the end of the last token: every character past the name that is not white space is in a token. */
+  get def(): PlainObjectMacro {
+    return this;
+  }
+
+  get nameSpan(): Span {
+    return plainNameSpan(this.name, this.from);
+  }
+
   get span(): Span {
-    let last = this.to;
-    while (last > this.from && isLineSpace(this.source.charCodeAt(last - 1))) last--;
-    return { start: this.source.indexOf('#', this.lineStart), end: last };
+    return plainDefineSpan(this.source, this.lineStart, this.from, this.to);
   }
 
   get body(): SourceToken[] {
@@ -73,6 +79,16 @@ export class PlainObjectMacro implements MacroDef {
   readBody(): SourceToken[] {
     return this.tokens || tokenizePlainRange(this.source, this.from, this.to, this.uri) || tokenizeSourceRange(this.source, this.from, this.to, this.uri, []);
   }
+}
+
+/** Where the name of a plain one-line #define stands: it ends where its replacement list begins. */
+export const plainNameSpan = (name: string, nameEnd: number): Span => ({ start: nameEnd - name.length, end: nameEnd });
+
+/** A plain one-line #define from '#' to the end of its last token: every character past the name that is not white space is in a token. */
+export function plainDefineSpan(source: string, lineStart: number, nameEnd: number, end: number): Span {
+  let last = end;
+  while (last > nameEnd && isLineSpace(source.charCodeAt(last - 1))) last--;
+  return { start: source.indexOf('#', lineStart), end: last };
 }
 
 /** A macro's replacement list for one reading that keeps nothing (a plain macro's tokens are made anew). */

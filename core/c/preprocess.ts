@@ -11,9 +11,9 @@ import type { TypeSystem } from './ctypes';
 import { DeclarationScanner, type DeclarationSink } from './declarations';
 import { noSearchDirs, resolveInclude, type IncludeEnv } from './include';
 import { isError } from './evaluate';
-import { DEFAULT_LIMITS, expandMacros, PlainObjectMacro, type ExpandLimits, type MacroDef } from './macros';
+import { DEFAULT_LIMITS, expandMacros, type ExpandLimits, type MacroDef } from './macros';
 import { findEffect, storeEffect, type HeaderEffect, type HeaderMemo } from './memo';
-import { conditionText, mergeBranches, Scope } from './scope';
+import { conditionText, mergeBranches, PlainDefines, Scope, withPlainDefines } from './scope';
 import { emptySkim, hasLoneCarriageReturn, nextSkimStop, skimLine } from './skim';
 import { lineIndex, tokenizeSourceRange, type SourceToken } from './tokens';
 
@@ -78,6 +78,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
   const limits = options.limits ?? DEFAULT_LIMITS;
   const ppTypes = preprocessorTypes(options.ts);
   const root = new Scope();
+  const plain = (root.plain = new PlainDefines());
   const findings: Array<Finding & { uri: string }> = [];
   const dependencies = new Set<string>();
   const missing: string[] = [];
@@ -116,6 +117,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     dependencies.add(uri);
     for (const r of recordings) r.files.set(uri, source);
     lineOfFile.set(uri, lineIndex(source));
+    const plainFile = plain.file(uri, source);
     const frames: Frame[] = [];
     const live = (): boolean => frames.length === 0 || frames[frames.length - 1].live;
 
@@ -212,7 +214,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
         }
       }
       if (isLive) {
-        const end = definePlain(source, pos, uri, skimCountsLines ? nextLine : undefined);
+        const end = definePlain(source, pos, uri, plainFile, skimCountsLines ? nextLine : undefined);
         if (end >= 0) {
           lineNumber = nextLine++;
           pos = end + 1;
@@ -321,7 +323,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
    * the macro without skimming or tokenizing the line (see PlainObjectMacro), and the line's end. -1, having done
    * nothing, for any other line.
    */
-  const definePlain = (source: string, start: number, uri: string, lineNumber: number | undefined): number => {
+  const definePlain = (source: string, start: number, uri: string, file: number, lineNumber: number | undefined): number => {
     PLAIN_DEFINE_HEAD.lastIndex = start;
     if (!PLAIN_DEFINE_HEAD.test(source)) return -1;
     // Read back from where the matches ended (test() makes no match object): the name is the letters before it.
@@ -333,7 +335,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     while (isNamePart(source.charCodeAt(nameStart - 1))) nameStart--;
     const name = source.slice(nameStart, nameEnd);
     const line = lineNumber ?? lineOfFile.get(uri)?.(nameStart) ?? 1;
-    current.macros.set(name, { kind: 'def', def: new PlainObjectMacro(name, uri, line, source, start, nameEnd, end) });
+    current.macros.set(name, plain.add(file, start, nameEnd, end, line));
     return end;
   };
 
@@ -440,7 +442,7 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
     storeEffect(memoMap, uri, {
       context, text: source, files: [...recording.files],
       macroReads: layer.reads.macros, declReads: layer.reads.decls, typedefReads: layer.reads.typedefs,
-      macros: layer.macros, decls: layer.decls, typedefs: layer.typedefs,
+      macros: withPlainDefines(layer, layer.macros), decls: layer.decls, typedefs: layer.typedefs,
       findings: findings.slice(before.findings), missing: missing.slice(before.missing), includes: includes - before.includes,
     });
   };

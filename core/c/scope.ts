@@ -2,7 +2,7 @@
 // layer, and the layers merge at #endif. A name defined alike (or in one branch only) keeps that
 // definition; defined differently in two branches, it becomes a conflict that lookups report, never a guess.
 import type { CType, TypeConflict } from './ctypes';
-import type { MacroDef } from './macros';
+import { PlainObjectMacro, type MacroDef } from './macros';
 import type { SourceToken } from './tokens';
 import type { Span } from '../types';
 
@@ -59,14 +59,71 @@ const sameType = (a: CType | TypeConflict, b: CType | TypeConflict): boolean =>
 
 export const sameTypedef = (a: TypedefDef, b: TypedefDef): boolean => a === b || sameType(a.type, b.type);
 
+/**
+ * The plain one-line #defines of one preprocessing run (see PlainObjectMacro), kept as a few numbers each: a scope
+ * maps such a name to its number here, and a lookup makes the macro when it reads the name. A firmware file and its
+ * headers define far more macros than a block reads.
+ */
+export class PlainDefines {
+  private files: Array<{ uri: string; source: string }> = [];
+  /** Per define: file, line start, name end, line end, line number, times read. */
+  private records = new Int32Array(6 * 256);
+  private count = 0;
+
+  /** The number of a file whose defines follow (the last one asked for, when it is that again). */
+  file(uri: string, source: string): number {
+    const last = this.files.length - 1;
+    if (last >= 0 && this.files[last].uri === uri && this.files[last].source === source) return last;
+    this.files.push({ uri, source });
+    return last + 1;
+  }
+
+  add(file: number, lineStart: number, nameEnd: number, end: number, line: number): number {
+    let r = this.records;
+    const at = this.count * 6;
+    if (at + 6 > r.length) {
+      r = new Int32Array(r.length * 2);
+      r.set(this.records);
+      this.records = r;
+    }
+    r[at] = file;
+    r[at + 1] = lineStart;
+    r[at + 2] = nameEnd;
+    r[at + 3] = end;
+    r[at + 4] = line;
+    r[at + 5] = 0;
+    return this.count++;
+  }
+
+  /**
+   * Define `k`, named `name`, as a binding (the macro is its own), made anew at each reading until the scope keeps it
+   * from its third reading on (a clock every timer reads): one read for its own value and inside one other constant
+   * leaves nothing behind.
+   */
+  binding(name: string, k: number): Binding<MacroDef> {
+    const r = this.records;
+    const at = k * 6;
+    const f = this.files[r[at]];
+    return new PlainObjectMacro(name, f.uri, r[at + 4], f.source, r[at + 1], r[at + 2], r[at + 3]);
+  }
+
+  /** Counts a reading of define `k`: true from the third on (see binding). */
+  readAgain(k: number): boolean {
+    return ++this.records[k * 6 + 5] >= 3;
+  }
+}
+
 export class Scope {
-  readonly macros = new Map<string, Binding<MacroDef>>();
+  /** A number stands for a define in the run's PlainDefines. */
+  readonly macros = new Map<string, Binding<MacroDef> | number>();
   readonly decls = new Map<string, Binding<Declaration>>();
   readonly typedefs = new Map<string, Binding<TypedefDef>>();
   /** `condition`: for a branch of an undecided #if, the directive that opened its group. */
   constructor(readonly parent?: Scope, readonly condition?: string) {}
   /** Set on a header's own layer: every name it looks up beyond itself, with the answer it got (core/c/memo.ts). */
   reads?: ScopeReads;
+  /** Set on the root scope of a run. */
+  plain?: PlainDefines;
 
   typedef(name: string): Binding<TypedefDef> | undefined {
     return this.find(name, 'typedefs');
@@ -89,10 +146,21 @@ export class Scope {
     return this.find(name, 'decls');
   }
 
+  /** Plain define `k` of the run, which this scope's map holds for `name`, as a binding. */
+  plainDefine(name: string, k: number): Binding<MacroDef> {
+    let root: Scope = this;
+    while (root.parent) root = root.parent;
+    const plain = root.plain as PlainDefines;
+    const binding = plain.binding(name, k);
+    if (plain.readAgain(k)) this.macros.set(name, binding);
+    return binding;
+  }
+
   private find<K extends keyof ScopeReads>(name: string, kind: K): ReturnType<ScopeReads[K]['get']> {
     type B = ReturnType<ScopeReads[K]['get']>;
     for (let s: Scope | undefined = this; s; s = s.parent) {
       const b = (s[kind] as Map<string, unknown>).get(name);
+      if (typeof b === 'number') return s.plainDefine(name, b) as B;
       if (b) return b as B;
       if (s.reads) {
         const outer = s.parent?.find(name, kind) as B;
@@ -103,6 +171,12 @@ export class Scope {
     }
     return undefined as B;
   }
+}
+
+/** Every plain define of `map` as the binding it stands for (for a header's effect, replayed in other runs). */
+export function withPlainDefines(scope: Scope, map: Map<string, Binding<MacroDef> | number>): Map<string, Binding<MacroDef>> {
+  for (const [name, b] of map) if (typeof b === 'number') map.set(name, scope.plainDefine(name, b));
+  return map as Map<string, Binding<MacroDef>>;
 }
 
 export interface ScopeReads {
@@ -120,7 +194,7 @@ export function mergeBranches(base: Scope, branches: Scope[], fallThrough: boole
 
 function mergeMap<T>(
   base: Scope, branches: Scope[], fallThrough: boolean,
-  own: (s: Scope) => Map<string, Binding<T>>, find: (s: Scope, name: string) => Binding<T> | undefined, same: (a: T, b: T) => boolean,
+  own: (s: Scope) => Map<string, Binding<T> | number>, find: (s: Scope, name: string) => Binding<T> | undefined, same: (a: T, b: T) => boolean,
 ): void {
   const names = new Set<string>();
   for (const b of branches) for (const n of own(b).keys()) names.add(n);

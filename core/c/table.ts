@@ -4,13 +4,13 @@ import { Code } from '../codes';
 import type { Finding, Span } from '../types';
 import { convert, fits, typeSystem, type CType, type DataModel, type TypeConflict, type Val } from './ctypes';
 import { evaluate, isError, type EvalContext, type EvalError, type EvalResult } from './evaluate';
-import { bodyOf, expandMacros, type MacroDef } from './macros';
+import { bodyOf, expandMacros, plainDefineSpan, plainNameSpan, PlainObjectMacro, type MacroDef } from './macros';
 import { parseChar, parseNumber } from './literals';
 import { parseExpression } from './parse';
 import type { BuildConfig } from './config';
 import type { HeaderMemo } from './memo';
 import { preprocess } from './preprocess';
-import type { Declaration } from './scope';
+import type { Binding, Declaration } from './scope';
 import { tokenizeSource, type SourceToken } from './tokens';
 
 export interface CValue { value: bigint | number; type: string }
@@ -82,13 +82,44 @@ function soleLiteral(body: SourceToken[]): SourceToken | undefined {
   return t && (t.kind === 'number' || t.kind === 'char') ? t : undefined;
 }
 
+/**
+ * The definition of a plain one-line macro: its places are made when asked (see PlainObjectMacro); most lookups
+ * want the value, the file and the line alone. It keeps where the macro stands, not the macro.
+ */
+class PlainDefinition implements ConstantDefinition {
+  declare readonly name: string;
+  declare readonly uri: string;
+  declare readonly line: number;
+  declare readonly literal: ConstantDefinition['literal'];
+  declare private readonly source: string;
+  declare private readonly lineStart: number;
+  declare private readonly nameEnd: number;
+  declare private readonly end: number;
+
+  constructor(macro: PlainObjectMacro, literal: ConstantDefinition['literal']) {
+    this.name = macro.name;
+    this.uri = macro.uri;
+    this.line = macro.line;
+    this.literal = literal;
+    this.source = macro.source;
+    this.lineStart = macro.lineStart;
+    this.nameEnd = macro.from;
+    this.end = macro.to;
+  }
+
+  get span(): Span { return plainDefineSpan(this.source, this.lineStart, this.nameEnd, this.end); }
+  get nameSpan(): Span { return plainNameSpan(this.name, this.nameEnd); }
+}
+
 /** `sole`: the body's sole literal, when the caller has found it already (null: it has none). */
 function definitionOf(d: MacroDef | Declaration, sole?: SourceToken | null): ConstantDefinition {
   if (sole === undefined) {
     const body = 'body' in d ? bodyOf(d) : d.init;
     sole = body ? soleLiteral(body) : undefined;
   }
-  return { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal: sole ? { span: { start: sole.start, end: sole.end }, text: sole.text } : undefined };
+  const literal = sole ? { span: { start: sole.start, end: sole.end }, text: sole.text } : undefined;
+  if (d instanceof PlainObjectMacro) return new PlainDefinition(d, literal);
+  return { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal };
 }
 
 const where = (d: MacroDef | Declaration): string => `${d.uri.split(/[\\/]/).pop()}:${d.line}`;
@@ -177,8 +208,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     return fits(x.v, ts.int) ? { v: x.v, t: ts.int } : x;
   };
 
-  const compute = (name: string): ConstantResolution => {
-    const mb = root.macro(name);
+  const compute = (name: string, mb: Binding<MacroDef> | undefined): ConstantResolution => {
     if (mb?.kind === 'conflict') {
       return { ok: false, code: Code.cConditional, message: `${name} is defined differently under #if branches (${mb.defs.map(where).join(', ')}); ${undecidedNote(mb.conditions)}` };
     }
@@ -190,7 +220,9 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       const literal = literalValue(sole ?? undefined);
       if (literal) return finish(name, literal, m, sole);
       // The body's identifiers are hidden from the macro itself (C11 6.10.3.4p2).
-      return finish(name, evalTokens(body, new Set([name])), m, sole);
+      const inside = new Set<string>();
+      inside.add(name);
+      return finish(name, evalTokens(body, inside), m, sole);
     }
     const db = root.decl(name);
     if (db?.kind === 'conflict') {
@@ -208,11 +240,12 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     const at = active.indexOf(name);
     if (at >= 0) return { ok: false, code: Code.cCycle, message: `${name} depends on itself: ${[...active.slice(at), name].join(' → ')}` };
     if (active.length >= MAX_NAME_DEPTH) return { ok: false, code: Code.cExpansionLimit, message: `constants refer to each other more than ${MAX_NAME_DEPTH} deep at ${name}` };
-    if (active.length === 0) warmEnumChain(name);
+    const mb = root.macro(name);
+    if (active.length === 0 && !mb) warmEnumChain(name);
     active.push(name);
     let r: ConstantResolution;
     try {
-      r = compute(name);
+      r = compute(name, mb);
     } catch (e) {
       // A hostile chain of nested constants can still exhaust the stack; that is a finding, not a crash.
       if (!(e instanceof RangeError)) throw e;
@@ -224,7 +257,6 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
 
   /** Resolves a long run of implicit enum values oldest first, so the recursion stays one member deep. */
   const warmEnumChain = (name: string): void => {
-    if (root.macro(name)) return;
     const chain: string[] = [];
     const seen = new Set<string>();
     for (let n: string | undefined = name; n !== undefined && !memo.has(n) && !seen.has(n) && !root.macro(n);) {

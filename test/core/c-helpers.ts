@@ -1,6 +1,6 @@
 // In-memory workspace for the C constant tests.
 import * as path from 'node:path';
-import { buildConstantTable, type ConstantTable, type DataModel } from '../../core/c';
+import { buildConstantTable, type ConstantResolution, type ConstantTable, type DataModel } from '../../core/c';
 
 export function workspace(files: Record<string, string>, options: { includeDirs?: string[]; dataModel?: DataModel; links?: Record<string, string> } = {}): {
   table: (entry: string) => ConstantTable;
@@ -20,4 +20,11 @@ export function workspace(files: Record<string, string>, options: { includeDirs?
 export const valueOf = (t: ConstantTable, name: string): bigint | number | string => {
   const r = t.lookup(name);
   return r.ok ? r.value.value : `${r.code}: ${r.message}`;
+};
+
+/** A lookup as plain data, every place of its definition read (a plain macro's places are made when asked). */
+export const resolutionData = (r: ConstantResolution): unknown => {
+  const d = r.definition;
+  if (!d) return r;
+  return { ...r, definition: { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal: d.literal } };
 };

@@ -4,6 +4,7 @@
 import { strict as assert } from 'assert';
 import { buildConstantTable, type ConstantTable } from '../../core/c';
 import { ConstantTableCache } from '../../core/analyze/tables';
+import { resolutionData } from './c-helpers';
 
 const header = '#ifndef BOARD_H\n#define BOARD_H\n#define CLOCK_HZ 16000000u\n#define DIV 64u\n#endif\n';
 const source = (claim: string, extra = '') => [
@@ -24,7 +25,7 @@ function cached(cache: ConstantTableCache, text: string, files: Record<string, s
   return cache.table('/fw/tick.c', text, 'ilp32', read, (r) => buildConstantTable('/fw/tick.c', text, { dataModel: 'ilp32', includeDirs: [], workspaceRoots: ['/fw'], read: r }));
 }
 
-const answers = (table: ConstantTable) => ['TOP', 'DIV', 'SLOT_COUNT', 'MISSING'].map((name) => table.lookup(name));
+const answers = (table: ConstantTable) => ['TOP', 'DIV', 'SLOT_COUNT', 'MISSING'].map((name) => resolutionData(table.lookup(name)));
 
 describe('constant tables kept across edits', () => {
   it('keeps the table through an edit inside the block, with the places of the new text', () => {
