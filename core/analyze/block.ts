@@ -23,6 +23,9 @@ const dataModels = (blockKey('data-model')?.words ?? []).map((w) => w.word as Da
 /** Overrides of a block without `?` keys: nothing solved, so nothing replaces a value (never written to). */
 const noOverrides: Record<string, number> = Object.freeze({}) as Record<string, number>;
 
+/** The results of a block stopped before its model ran: one shared empty record, never written. */
+const noValues: Record<string, number> = Object.freeze({}) as Record<string, number>;
+
 function hasError(findings: readonly Finding[]): boolean {
   for (let i = 0; i < findings.length; i++) if (findings[i].severity === 'error') return true;
   return false;
@@ -78,7 +81,7 @@ export function analyzeBlock(raw: RawBlock, context: BlockContext): BlockAnalysi
 
   const params = evaluateParams(plan, undefined, overrides);
   // The plan's own records, made for this block alone: the analysis keeps them rather than copies.
-  const analysis: BlockAnalysis = { name, line: context.line, circuit: circuitId, block: raw, params: finiteRecord(params), choices: plan.choices, lists: plan.lists, values: {}, identifiers: plan.identifiers, findings };
+  const analysis: BlockAnalysis = { name, line: context.line, circuit: circuitId, block: raw, params: finiteRecord(params), choices: plan.choices, lists: plan.lists, values: noValues, identifiers: plan.identifiers, findings };
   if (plan.references.length) analysis.references = plan.references as BlockAnalysis['references'];
   if (solved) analysis.solved = solved;
   if (hasError(findings)) return analysis;

@@ -31,7 +31,8 @@ export function isMetaEntry(key: string, value: string): boolean {
 /** The entry that names a block's firmware file: `firmware:`, or the older `from:` with a C-family path. */
 export function firmwareEntry<E extends { key: string; valueText: string }>(entries: readonly E[]): E | undefined {
   let from: E | undefined;
-  for (const e of entries) {
+  for (let i = 0; i < entries.length; i++) {
+    const e = entries[i];
     if (e.key === 'firmware') return e;
     if (e.key === 'from' && !from && isFirmwarePath(e.valueText)) from = e;
   }

@@ -23,6 +23,9 @@ export function modelInput(plan: Plan, values: Readonly<Record<string, number>>,
   return { values, choices: plan.choices, lists: plan.lists, ranges: plan.ranges, name: plan.name, tolerances: inputTolerances(plan, values, overrides) };
 }
 
+/** The bands of a block without a toleranced input: one shared record, read by models and the editor, never written. */
+const noBands: Record<string, Band> = Object.freeze({}) as Record<string, Band>;
+
 /** Beyond this many toleranced inputs (2^n corners) the bands come from each key's own tolerance only. */
 const bandCornerLimit = 6;
 
@@ -32,9 +35,9 @@ const bandCornerLimit = 6;
  * input of the block, own and upstream, so a key computed from others gets theirs too.
  */
 export function inputTolerances(plan: Plan, values: Readonly<Record<string, number>>, overrides?: Readonly<Record<string, number>>): Record<string, Band> {
-  const bands: Record<string, Band> = {};
   const keys = tolerancedKeys(plan);
-  if (keys.length === 0) return bands;
+  if (keys.length === 0) return noBands;
+  const bands: Record<string, Band> = {};
   if (keys.length > bandCornerLimit) {
     for (const slot of plan.slots.values()) {
       const t = slot.tolerance;

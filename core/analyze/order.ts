@@ -20,8 +20,8 @@ function isUnknown(unknowns: ReadonlyArray<{ key: string }>, key: string): boole
   return false;
 }
 
-function allDone(refs: ReadonlyArray<readonly [string, string]>, done: ReadonlySet<string>): boolean {
-  for (let i = 0; i < refs.length; i++) if (!done.has(refs[i][1])) return false;
+function allDone(refs: ReadonlyArray<readonly [string, string]>, order: readonly string[]): boolean {
+  for (let i = 0; i < refs.length; i++) if (!order.includes(refs[i][1])) return false;
   return true;
 }
 
@@ -30,49 +30,50 @@ function allDone(refs: ReadonlyArray<readonly [string, string]>, done: ReadonlyS
  * its inputs exist. Found once by a fixed-point pass, then replayed for every evaluation.
  */
 export function evaluationOrder(plan: OrderInput, raw: RawBlock): { order: string[]; findings: Finding[] } {
+  // The keys placed so far, in order: a handful per block, searched natively rather than kept in a Set as well.
   const order: string[] = [];
-  const done = new Set<string>();
   const unknowns = plan.unknowns;
   const quantitySpecs = modelKeys(plan.model).quantityList;
   // What a computed default sees of the keys before it: 1 for a given or unknown key, a default its value. Kept
   // only for defaults (most are plain numbers, and most keys are given).
   let defaults: Record<string, number> | undefined;
-  let progress = true;
-  while (progress) {
-    progress = false;
+  // Another pass can only place a key this one left waiting: a value naming keys not yet placed, or a default
+  // that was not finite with the keys placed so far. Without one, the order is complete.
+  let waiting = true;
+  while (waiting) {
+    let progress = false;
+    waiting = false;
     for (let i = 0; i < quantitySpecs.length; i++) {
       const spec = quantitySpecs[i];
-      if (done.has(spec.key)) continue;
+      if (order.includes(spec.key)) continue;
       const slot = plan.slots.get(spec.key);
       if (unknowns.length && isUnknown(unknowns, spec.key)) {
-        done.add(spec.key);
         order.push(spec.key);
         progress = true;
       } else if (slot) {
-        if (allDone(slot.blockRefs, done)) {
-          done.add(spec.key);
+        if (allDone(slot.blockRefs, order)) {
           order.push(spec.key);
           progress = true;
-        }
+        } else waiting = true;
       } else if (!plan.entries.has(spec.key) && spec.default !== undefined) {
         const value = typeof spec.default === 'number' ? spec.default : spec.default(probeValues(order, defaults));
         if (Number.isFinite(value)) {
-          done.add(spec.key);
           order.push(spec.key);
           (defaults ??= Object.create(null) as Record<string, number>)[spec.key] = value;
           progress = true;
-        }
+        } else waiting = true;
       }
     }
+    waiting &&= progress;
   }
   let findings = noFindings;
-  if (done.size === quantitySpecs.length) return { order, findings };
+  if (order.length === quantitySpecs.length) return { order, findings };
   for (let i = 0; i < quantitySpecs.length; i++) {
     const spec = quantitySpecs[i];
-    if (done.has(spec.key)) continue;
+    if (order.includes(spec.key)) continue;
     const slot = plan.slots.get(spec.key);
     if (slot) {
-      const names = slot.blockRefs.map(([, key]) => key).filter((k) => !done.has(k));
+      const names = slot.blockRefs.map(([, key]) => key).filter((k) => !order.includes(k));
       if (findings === noFindings) findings = [];
       findings.push({
         severity: 'error',

@@ -163,6 +163,10 @@ class PlanBuilder {
   }
 }
 
+/** The lists and ranges of a block that gives none: shared records, read by models and the editor, never written. */
+const noLists: Record<string, IntegerSet> = Object.freeze({}) as Record<string, IntegerSet>;
+const noRanges: Record<string, Interval> = Object.freeze({}) as Record<string, Interval>;
+
 const noLookups: ReadonlyMap<string, IdentifierLookup & { ok: true }> = new Map();
 
 /**
@@ -285,8 +289,8 @@ export function buildPlan(
     order,
     externalLookups: built.externalLookups ?? noLookups,
     choices,
-    lists: lists ?? {},
-    ranges: ranges ?? {},
+    lists: lists ?? noLists,
+    ranges: ranges ?? noRanges,
     unknowns: built.unknowns,
     findings: built.findings,
     identifiers: built.identifiers,

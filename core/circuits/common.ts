@@ -31,25 +31,28 @@ export const oscillatorResults: readonly ResultSpec[] = [
 
 export const oscillatorHeadline = ['frequency', 'period', 'duty'] as const;
 
+/** One key's value, present and finite; reported under its own key. */
+function finiteAt(input: ModelInput, key: string, issues: ModelIssue[]): boolean {
+  const value = input.values[key];
+  if (value !== undefined && Number.isFinite(value)) return true;
+  issues.push({ key, message: `\`${key}\` needs a finite value` });
+  return false;
+}
+
 /** A value that must be present and finite; reports it under its own key. */
 export function checkFinite(input: ModelInput, keys: readonly string[], issues: ModelIssue[]): boolean {
   let ok = true;
-  for (const key of keys) {
-    const value = input.values[key];
-    if (value === undefined || !Number.isFinite(value)) {
-      issues.push({ key, message: `\`${key}\` needs a finite value` });
-      ok = false;
-    }
-  }
+  for (let i = 0; i < keys.length; i++) if (!finiteAt(input, keys[i], issues)) ok = false;
   return ok;
 }
 
 /** R, C, τ and the like: zero or negative values have no physical meaning here. */
 export function checkPositive(input: ModelInput, keys: readonly string[], issues: ModelIssue[]): boolean {
   let ok = true;
-  for (const key of keys) {
+  for (let i = 0; i < keys.length; i++) {
+    const key = keys[i];
     const value = input.values[key];
-    if (!checkFinite(input, [key], issues)) ok = false;
+    if (!finiteAt(input, key, issues)) ok = false;
     else if (value <= 0) {
       issues.push({ key, message: `\`${key}\` must be greater than zero (got ${eng(value)})` });
       ok = false;
