@@ -9,6 +9,7 @@ import type { BlockContext } from './context';
 import type { AnalyzeOptions, IdentifierSource } from './context';
 import { cFileSource, fromFileSource, noIdentifiers } from './sources';
 import { firmwareEntry } from './keys';
+import { unresolvedReferences } from './references';
 
 export interface PreparedBlock {
   raw: RawBlock;
@@ -72,7 +73,8 @@ export function prepareDocument(doc: TextDocumentLike, options: AnalyzeOptions):
       }
     }
     used.add(source);
-    prepared.push({ raw, context: { uri: doc.uri, line: lines.lineOf(raw.headerSpan.start) + 1, options, source }, extra });
+    // Ready for the workspace pass as it stands when the block names no other and none reads it.
+    prepared.push({ raw, context: { uri: doc.uri, line: lines.lineOf(raw.headerSpan.start) + 1, options, source, references: unresolvedReferences, computed: undefined }, extra });
   }
 
   const finish = (analyses: BlockAnalysis[]): DocumentAnalysis => {

@@ -11,6 +11,14 @@ export const noReferences: ReferenceSource = {
   resolve: (ref) => ({ ok: false, code: Code.referenceUnknown, message: `\`@${ref.block}\`: no block of that name is known here` }),
 };
 
+/**
+ * The references of a block in the workspace pass whose values name no other block: any name it might still ask
+ * for was found nowhere. One for every such block, in every pass.
+ */
+export const unresolvedReferences: ReferenceSource = {
+  resolve: (ref) => lookupResult(ref, undefined, 'not found'),
+};
+
 /** The dimension a result has inside another block's arithmetic: fractions shown as percent read as percent. */
 export function resultDim(spec: ResultSpec): Dim {
   return spec.percent ? '%' : spec.dim;

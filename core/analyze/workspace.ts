@@ -10,7 +10,7 @@ import { AnalysisCache, type CacheStats } from './cache';
 import { ConstantTableCache } from './tables';
 import { prepareDocument, tooLargeAnalysis, type PreparedDocument } from './document';
 import { buildGraph, type GraphBlock, type Resolution } from './graph';
-import { lookupResult } from './references';
+import { lookupResult, unresolvedReferences } from './references';
 import { nested, upstreamEpoch } from './evaluate';
 
 /** Analyses documents together; `cacheFor` gives a document's cache (the editor keeps one per open document). */
@@ -60,19 +60,22 @@ export function analyzeWorkspace(
       const p = prepared[doc] as PreparedDocument;
       const item = p.blocks[indexIn[v]];
       const resolutions = graph.resolutions[v];
-      // A block whose values name no other block shares one source: every name it might still ask is not found.
-      const references: ReferenceSource = resolutions.size === 0 ? unresolved : resolvedBy(resolutions, outputs, problems);
       const name = item.raw.name;
       const referenced = graph.referenced.has(v);
-      // Results are handed on only where a reference reads them; a cache keeps them for later passes itself.
-      const context: BlockContext = {
-        uri: item.context.uri,
-        line: item.context.line,
-        options: item.context.options,
-        source: item.context.source,
-        references,
-        computed: name !== undefined && referenced ? handOn(outputs, v, item.context, name) : undefined,
-      };
+      const handsOn = name !== undefined && referenced;
+      // A block that names no other block and that none reads is analysed in its prepared context, whose
+      // references find nothing (prepareDocument); the others get this pass's references and hand their results on.
+      const context: BlockContext = resolutions.size === 0 && !handsOn && item.context.references === unresolvedReferences
+        ? item.context
+        : {
+            uri: item.context.uri,
+            line: item.context.line,
+            options: item.context.options,
+            source: item.context.source,
+            references: resolutions.size === 0 ? unresolvedReferences : resolvedBy(resolutions, outputs, problems),
+            // Results are handed on only where a reference reads them; a cache keeps them for later passes itself.
+            computed: handsOn ? handOn(outputs, v, item.context, name) : undefined,
+          };
       const cache = caches.get(doc);
       const analysis = cache ? cache.analyzeBlock(item.raw, context) : analyzeBlock(item.raw, context);
       const output = outputs[v];
@@ -88,9 +91,6 @@ export function analyzeWorkspace(
   }
   return prepared.map((p, d) => ('finish' in p ? p.finish(analyses[d]) : p));
 }
-
-/** The references of a block that names no other block: any it asks for is not found. */
-const unresolved: ReferenceSource = { resolve: (ref) => lookupResult(ref, undefined, 'not found') };
 
 /** The references of a block that names others, read from the outputs of the blocks analysed before it. */
 function resolvedBy(resolutions: Map<string, Resolution>, outputs: Array<BlockOutput | undefined>, problems: Array<string | undefined>): ReferenceSource {
