@@ -102,14 +102,14 @@ export const DEFAULT_LIMITS: ExpandLimits = { maxTokens: 10_000, maxDepth: 200 }
 class Stop { constructor(readonly error: EvalError) {} }
 
 /**
- * `inside`: the input is the replacement list of these macros, so each input identifier without a hide set of its
- * own has this one (given to it only where it is kept or read, not copied onto every identifier beforehand).
+ * `inside`: the input is the replacement list of this macro, so each input identifier without a hide set of its own
+ * has the set of this name (made only where an identifier is kept or carries it on, not copied onto every one).
  */
 export function expandMacros(
   input: SourceToken[],
   lookup: (name: string) => MacroDef | undefined,
   limits: ExpandLimits = DEFAULT_LIMITS,
-  inside?: ReadonlySet<string>,
+  inside?: string,
 ): SourceToken[] | EvalError {
   // Only an identifier can be replaced, or take the hide set of `inside`: without one the input is the result.
   let k = 0;
@@ -130,13 +130,21 @@ class Expander {
   declare private produced: number;
   declare private readonly lookup: (name: string) => MacroDef | undefined;
   declare private readonly limits: ExpandLimits;
-  declare private readonly inside: ReadonlySet<string> | undefined;
+  declare private readonly inside: string | undefined;
+  /** The hide set of `inside`, once an identifier needs it as a set. */
+  declare private insideSet: Set<string> | undefined;
 
-  constructor(lookup: (name: string) => MacroDef | undefined, limits: ExpandLimits, inside: ReadonlySet<string> | undefined) {
+  constructor(lookup: (name: string) => MacroDef | undefined, limits: ExpandLimits, inside: string | undefined) {
     this.produced = 0;
     this.lookup = lookup;
     this.limits = limits;
     this.inside = inside;
+    this.insideSet = undefined;
+  }
+
+  private insideHide(): Set<string> {
+    if (!this.insideSet) { this.insideSet = new Set<string>(); this.insideSet.add(this.inside as string); }
+    return this.insideSet;
   }
 
   private limit(tok: SourceToken, what: string): never {
@@ -151,15 +159,16 @@ class Expander {
     while (stack.length) {
       const t = stack.pop() as SourceToken;
       if (t.kind !== 'ident') { out.push(t); continue; }
-      const hidden = t.hide ?? inside;
+      // t's hide set: its own, else (an identifier of the input) the one of `inside`, read here by name alone.
+      const own = t.hide;
       const m = this.lookup(t.text);
-      if (!m || hidden?.has(m.name) || (m.params && stack[stack.length - 1]?.text !== '(')) {
-        out.push(t.hide || !inside ? t : withHide(t, inside));
+      if (!m || (own ? own.has(m.name) : m.name === inside) || (m.params && stack[stack.length - 1]?.text !== '(')) {
+        out.push(own || inside === undefined ? t : withHide(t, this.insideHide()));
         continue;
       }
       const args = m.params ? collectArgs(stack, m, t) : undefined;
       // The hide set is t's with m added (t's does not hold m); made only once an identifier needs it.
-      if ((hidden?.size ?? 0) + 1 > limits.maxDepth) this.limit(t, `nests deeper than ${limits.maxDepth}`);
+      if ((own ? own.size : inside === undefined ? 0 : 1) + 1 > limits.maxDepth) this.limit(t, `nests deeper than ${limits.maxDepth}`);
       // An object-like macro without `##` is replaced by its body as it stands.
       const replaced = args || hasPaste(m.body) ? substitute(m, args, (arg) => this.run(arg, depth + 1)) : m.body;
       this.produced += replaced.length;
@@ -169,7 +178,7 @@ class Expander {
         const r = replaced[i];
         // Only an identifier can be expanded or reported as self-referring, so only it carries the hide set.
         if (r.kind !== 'ident') { stack.push(r); continue; }
-        if (!hide) { hide = hidden ? new Set(hidden) : new Set<string>(); hide.add(m.name); }
+        if (!hide) { hide = own ? new Set(own) : inside === undefined ? new Set<string>() : new Set(this.insideHide()); hide.add(m.name); }
         stack.push(withHide(r, r.hide && r.hide.size ? new Set([...r.hide, ...hide]) : hide));
       }
     }

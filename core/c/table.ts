@@ -139,7 +139,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
   });
 
   /** Expands, parses and evaluates tokens; identifiers left after expansion resolve through the table. */
-  const evalTokens = (tokens: SourceToken[], inside?: ReadonlySet<string>): EvalResult => {
+  const evalTokens = (tokens: SourceToken[], inside?: string): EvalResult => {
     const expanded = expandMacros(tokens, macro, undefined, inside);
     if (isError(expanded)) return expanded;
     const node = parseExpression(expanded, typeNamed);
@@ -220,9 +220,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       const literal = literalValue(sole ?? undefined);
       if (literal) return finish(name, literal, m, sole);
       // The body's identifiers are hidden from the macro itself (C11 6.10.3.4p2).
-      const inside = new Set<string>();
-      inside.add(name);
-      return finish(name, evalTokens(body, inside), m, sole);
+      return finish(name, evalTokens(body, name), m, sole);
     }
     const db = root.decl(name);
     if (db?.kind === 'conflict') {

@@ -229,17 +229,22 @@ const PLAIN_TOKEN = /[A-Za-z_$][\w$]*|\.?[0-9](?:[eEpP][+-]|[\w$.])*|\.\.\.|<<=|
  * which tokenizeSourceRange then reads.
  */
 export function tokenizePlainRange(text: string, from: number, to: number, uri: string): SourceToken[] | undefined {
-  const out: SourceToken[] = [];
+  // Most bodies are one token: its array is made to measure (a first push would reserve room for 17).
+  let first: SourceToken | undefined;
+  let out: SourceToken[] | undefined;
   for (let i = from; ;) {
     while (i < to && (CLASS[text.charCodeAt(i)] & SPACE) !== 0) i++;
-    if (i >= to) return out;
+    if (i >= to) return out ?? (first ? [first] : []);
     PLAIN_TOKEN.lastIndex = i;
     if (!PLAIN_TOKEN.test(text)) return undefined;
     const end = PLAIN_TOKEN.lastIndex;
     if (end > to) return undefined;
     const c = text.charCodeAt(i);
     const kind: TokenKind = (CLASS[c] & IDENT_START) !== 0 ? 'ident' : isDigitCode(c) || (c === 46 && end - i > 1 && isDigitCode(text.charCodeAt(i + 1))) ? 'number' : 'punct';
-    out.push({ kind, text: text.slice(i, end), start: i, end, uri });
+    const token: SourceToken = { kind, text: text.slice(i, end), start: i, end, uri };
+    if (out) out.push(token);
+    else if (first) out = [first, token];
+    else first = token;
     i = end;
   }
 }
