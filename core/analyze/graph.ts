@@ -10,13 +10,10 @@ import { isMetaEntry } from './keys';
 /** References further up than this many blocks are refused: every evaluation walks the chain. */
 export const maxChainDepth = 64;
 
+/** A block as the graph reads it (a prepared block is one): its document and 1-based header line. */
 export interface GraphBlock {
-  uri: string;
-  /** Display path of the document, for messages that point elsewhere. */
-  path: string;
   raw: RawBlock;
-  /** 1-based header line. */
-  line: number;
+  context: { uri: string; line: number };
 }
 
 /** What one block's `@name` resolved to: a block, or the problem to report at each reference. */
@@ -53,26 +50,29 @@ export function blockReferences(raw: RawBlock): BlockRef[] {
 // Shared by every block without references: the passes below write only to names a table holds, so never to it.
 const noResolutions = new Map<string, Resolution>();
 
-export function buildGraph(blocks: readonly GraphBlock[]): ReferenceGraph {
-  const byName = new Map<string, number[]>();
+/** `pathOf`: the display path of a block's document, for messages that point elsewhere. */
+export function buildGraph(blocks: readonly GraphBlock[], pathOf: (index: number) => string): ReferenceGraph {
+  // Blocks by name: the index of a name's only block, a list once a second block has it.
+  const byName: ByName = new Map();
   for (let i = 0; i < blocks.length; i++) {
     const name = blocks[i].raw.name;
     if (name === undefined) continue;
-    const list = byName.get(name);
-    if (list) list.push(i);
-    else byName.set(name, [i]);
+    const known = byName.get(name);
+    if (known === undefined) byName.set(name, i);
+    else if (typeof known === 'number') byName.set(name, [known, i]);
+    else known.push(i);
   }
   const duplicates = new Map<number, Finding>();
   byName.forEach((list, name) => {
     // A name only one block has cannot be repeated in a file.
-    if (list.length < 2) return;
+    if (typeof list === 'number') return;
     for (const i of list) {
-      const others = list.filter((j) => j !== i && blocks[j].uri === blocks[i].uri);
+      const others = list.filter((j) => j !== i && blocks[j].context.uri === blocks[i].context.uri);
       if (others.length === 0 || !blocks[i].raw.nameSpan) continue;
       duplicates.set(i, {
         severity: 'warning',
         code: Code.blockNameRepeated,
-        message: `another block in this file is also named \`${name}\` (line ${others.map((j) => blocks[j].line).join(', ')}): \`@${name}\` cannot tell them apart; give each block its own name`,
+        message: `another block in this file is also named \`${name}\` (line ${others.map((j) => blocks[j].context.line).join(', ')}): \`@${name}\` cannot tell them apart; give each block its own name`,
         span: blocks[i].raw.nameSpan,
       });
     }
@@ -84,7 +84,7 @@ export function buildGraph(blocks: readonly GraphBlock[]): ReferenceGraph {
     // Most blocks read no other block: they share one empty table, which nothing below writes to.
     if (refs.length === 0) return noResolutions;
     const own = new Map<string, Resolution>();
-    for (const ref of refs) if (!own.has(ref.block)) own.set(ref.block, resolve(ref.block, block, blocks, byName));
+    for (const ref of refs) if (!own.has(ref.block)) own.set(ref.block, resolve(ref.block, block, blocks, byName, pathOf));
     linked = true;
     return own;
   });
@@ -97,13 +97,16 @@ export function buildGraph(blocks: readonly GraphBlock[]): ReferenceGraph {
   return { resolutions, order, duplicates, referenced };
 }
 
-function resolve(name: string, from: GraphBlock, blocks: readonly GraphBlock[], byName: Map<string, number[]>): Resolution {
-  const all = byName.get(name) ?? [];
-  const here = all.filter((i) => blocks[i].uri === from.uri);
+type ByName = Map<string, number | number[]>;
+
+function resolve(name: string, from: GraphBlock, blocks: readonly GraphBlock[], byName: ByName, pathOf: (index: number) => string): Resolution {
+  const known = byName.get(name);
+  const all = known === undefined ? [] : typeof known === 'number' ? [known] : known;
+  const here = all.filter((i) => blocks[i].context.uri === from.context.uri);
   const pool = here.length ? here : all;
   if (pool.length === 1) return { target: pool[0] };
   if (pool.length > 1) {
-    const where = pool.map((i) => (here.length ? `line ${blocks[i].line}` : `${blocks[i].path}:${blocks[i].line}`)).join(', ');
+    const where = pool.map((i) => (here.length ? `line ${blocks[i].context.line}` : `${pathOf(i)}:${blocks[i].context.line}`)).join(', ');
     return { problem: { code: Code.referenceAmbiguous, message: `\`@${name}\` is ambiguous: ${pool.length} blocks ${here.length ? 'in this file' : 'in the workspace'} are named \`${name}\` (${where}); rename all but one` } };
   }
   const near = [...byName.keys()]

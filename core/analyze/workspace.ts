@@ -25,23 +25,25 @@ export function analyzeWorkspace(
     const own = optionsFor(doc.uri);
     return isTooLarge(doc.text, own.maxFileBytes) ? tooLargeAnalysis(doc.uri, own) : prepare(doc, own);
   });
+  // The prepared blocks themselves, every document's in turn.
   const graphBlocks: GraphBlock[] = [];
+  const paths: Array<() => string> = [];
   // Where each graph block stands: its document, and its index there (two lists rather than a record per block).
   const docOf: number[] = [];
   const indexIn: number[] = [];
   for (let d = 0; d < prepared.length; d++) {
     const p = prepared[d];
     if (!('finish' in p) || p.blocks.length === 0) continue;
-    // One document, one options object (prepareDocument): its shown path is worked out once.
-    const path = shownPath(p.uri, p.blocks[0].context.options);
+    // One document, one options object (prepareDocument): its shown path is worked out once, and only when a
+    // message names it.
+    paths[d] = () => shownPath(p.uri, p.blocks[0].context.options);
     for (let i = 0; i < p.blocks.length; i++) {
-      const b = p.blocks[i];
-      graphBlocks.push({ uri: p.uri, path, raw: b.raw, line: b.context.line });
+      graphBlocks.push(p.blocks[i]);
       docOf.push(d);
       indexIn.push(i);
     }
   }
-  const graph = buildGraph(graphBlocks);
+  const graph = buildGraph(graphBlocks, (index) => paths[docOf[index]]());
   const outputs: Array<BlockOutput | undefined> = new Array(graphBlocks.length);
   const problems: Array<string | undefined> = new Array(graphBlocks.length);
   const analyses = prepared.map((p) => ('finish' in p ? new Array<BlockAnalysis>(p.blocks.length) : []));

@@ -16,7 +16,12 @@ export function setText(set: IntegerSet): string {
 
 /** Ascending, whole, positive, without repeats: the form the search needs. */
 export function normaliseSet(set: IntegerSet): IntegerSet {
-  if (set.kind === 'range') return { kind: 'range', min: Math.max(1, Math.ceil(set.min)), max: Math.floor(set.max) };
+  if (set.kind === 'range') {
+    const min = Math.max(1, Math.ceil(set.min));
+    const max = Math.floor(set.max);
+    // A range already in that form (the default prescalers, every check of every timer block) is its own result.
+    return min === set.min && max === set.max ? set : { kind: 'range', min, max };
+  }
   const values = [...new Set(set.values.filter((v) => Number.isInteger(v) && v >= 1))].sort((a, b) => a - b);
   return { kind: 'list', values };
 }
