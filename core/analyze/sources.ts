@@ -47,11 +47,12 @@ export function cFileSource(filePath: string, text: string, options: AnalyzeOpti
       const value = toNumber(resolution.value);
       if (!Number.isFinite(value)) return { ok: false, code: Code.cSyntax, message: `\`${name}\` is not a finite number` };
       const d = resolution.definition;
+      const literal = d.literal;
       return {
         ok: true,
         value,
         identifier: { name, value, uri: d.uri, line: d.line },
-        literal: d.literal ? { uri: d.uri, start: d.literal.span.start, end: d.literal.span.end, text: d.literal.text } : undefined,
+        literal: literal ? { uri: d.uri, start: literal.span.start, end: literal.span.end, text: literal.text } : undefined,
       };
     },
     dependencies: () => [...new Set([...tables.values()].flatMap((t) => t.dependencies))],

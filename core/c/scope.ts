@@ -159,7 +159,8 @@ export class Scope {
   private find<K extends keyof ScopeReads>(name: string, kind: K): ReturnType<ScopeReads[K]['get']> {
     type B = ReturnType<ScopeReads[K]['get']>;
     for (let s: Scope | undefined = this; s; s = s.parent) {
-      const b = (s[kind] as Map<string, unknown>).get(name);
+      // Each map by its own name (one shape of access), not s[kind].
+      const b = (kind === 'macros' ? s.macros : kind === 'decls' ? s.decls : s.typedefs as Map<string, unknown>).get(name);
       if (typeof b === 'number') return s.plainDefine(name, b) as B;
       if (b) return b as B;
       if (s.reads) {

@@ -90,25 +90,32 @@ class PlainDefinition implements ConstantDefinition {
   declare readonly name: string;
   declare readonly uri: string;
   declare readonly line: number;
-  declare readonly literal: ConstantDefinition['literal'];
   declare private readonly source: string;
   declare private readonly lineStart: number;
   declare private readonly nameEnd: number;
   declare private readonly end: number;
+  /** Where the sole literal of the body stands; -1 when it has none. */
+  declare private readonly literalStart: number;
+  declare private readonly literalEnd: number;
 
-  constructor(macro: PlainObjectMacro, literal: ConstantDefinition['literal']) {
+  constructor(macro: PlainObjectMacro, sole: SourceToken | undefined) {
     this.name = macro.name;
     this.uri = macro.uri;
     this.line = macro.line;
-    this.literal = literal;
     this.source = macro.source;
     this.lineStart = macro.lineStart;
     this.nameEnd = macro.from;
     this.end = macro.to;
+    this.literalStart = sole ? sole.start : -1;
+    this.literalEnd = sole ? sole.end : -1;
   }
 
   get span(): Span { return plainDefineSpan(this.source, this.lineStart, this.nameEnd, this.end); }
   get nameSpan(): Span { return plainNameSpan(this.name, this.nameEnd); }
+  // A plain line holds no splice: the literal's text is the text where it stands.
+  get literal(): ConstantDefinition['literal'] {
+    return this.literalStart < 0 ? undefined : { span: { start: this.literalStart, end: this.literalEnd }, text: this.source.slice(this.literalStart, this.literalEnd) };
+  }
 }
 
 /** `sole`: the body's sole literal, when the caller has found it already (null: it has none). */
@@ -117,9 +124,8 @@ function definitionOf(d: MacroDef | Declaration, sole?: SourceToken | null): Con
     const body = 'body' in d ? bodyOf(d) : d.init;
     sole = body ? soleLiteral(body) : undefined;
   }
-  const literal = sole ? { span: { start: sole.start, end: sole.end }, text: sole.text } : undefined;
-  if (d instanceof PlainObjectMacro) return new PlainDefinition(d, literal);
-  return { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal };
+  if (d instanceof PlainObjectMacro) return new PlainDefinition(d, sole ?? undefined);
+  return { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal: sole ? { span: { start: sole.start, end: sole.end }, text: sole.text } : undefined };
 }
 
 const where = (d: MacroDef | Declaration): string => `${d.uri.split(/[\\/]/).pop()}:${d.line}`;
