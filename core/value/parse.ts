@@ -1,5 +1,5 @@
 // parseValue: the text after `key:` to a tree, a tolerance, `?`, or a word, with document spans.
-import type { Dim, Span } from '../types';
+import type { Dim, Finding, Span } from '../types';
 import { Code } from '../codes';
 import type { ParsedValue } from './ast';
 import { error, isSpaceCode, lex, SPACE_CLASS } from './lexer';
@@ -31,6 +31,9 @@ const Q_POWER = /[eE][+-]?\d+/y;
 const Q_SPACES = new RegExp(`${SPACE_CLASS}*`, 'y');
 const Q_UNIT = /[A-Za-z_\u00b5\u03bc\u03a9\u2126%]*bit\/s|[A-Za-z_\u00b5\u03bc\u03a9\u2126%]+/y;
 const Q_PLUS_MINUS = /±|\+-|\+\/-/y;
+
+/** The findings of every value read without one: a shared empty list, never added to (a fresh one is made for any). */
+const noFindings = Object.freeze([]) as unknown as Finding[];
 
 /** Where the number quickNumber last read ends (body index), and its dimension. */
 let quickEnd = 0;
@@ -83,7 +86,7 @@ function quickValue(body: string, offset: number): ParsedValue | undefined {
   if (Number.isNaN(value)) return undefined;
   const dim = quickDim;
   const span: Span = { start: offset, end: offset + quickEnd };
-  if (quickEnd === body.length) return { findings: [], expr: { kind: 'number', value, dim, span } };
+  if (quickEnd === body.length) return { findings: noFindings, expr: { kind: 'number', value, dim, span } };
   const pmStart = spacesEnd(body, quickEnd);
   Q_PLUS_MINUS.lastIndex = pmStart;
   if (!Q_PLUS_MINUS.test(body)) return undefined;
@@ -92,7 +95,7 @@ function quickValue(body: string, offset: number): ParsedValue | undefined {
   // general way words.
   if (Number.isNaN(amount) || quickEnd !== body.length || quickDim === '' || (quickDim === '%' && amount > 1)) return undefined;
   return {
-    findings: [],
+    findings: noFindings,
     tolerance: { kind: quickDim === '%' ? 'relative' : 'absolute', plus: amount, minus: amount },
     toleranceSpan: { start: offset + pmStart, end: offset + quickEnd },
     toleranceDim: quickDim,
@@ -125,8 +128,8 @@ function parse(text: string, offset: number, quickly: boolean): ParsedValue {
     if (quick) return quick;
   }
   const kind = wordKind(body);
-  if (kind === 'identifier') return { word: body, expr: { kind: 'ident', name: body, span: { start: offset + start, end: offset + end } }, findings: [] };
-  if (kind === 'hyphenated') return { word: body, findings: [] };
+  if (kind === 'identifier') return { word: body, expr: { kind: 'ident', name: body, span: { start: offset + start, end: offset + end } }, findings: noFindings };
+  if (kind === 'hyphenated') return { word: body, findings: noFindings };
   const whole: Span = { start: offset + start, end: offset + end };
 
   const lexed = lex(body, offset + start);
