@@ -64,12 +64,12 @@ interface Frame {
   undecided?: string;
 }
 
-// `#define NAME` up to the name's end, the name followed by white space or the line's end (else the macro is
-// function-like, or the line is not so plain); then a replacement list free of `\`, quotes and comments to the
-// line's end. A line both match is one logical line whose tokens are its text with white space between.
-const PLAIN_DEFINE_HEAD = /[ \t\f\v\r]*#[ \t\f\v\r]*define[ \t\f\v\r]+[A-Za-z_$][\w$]*(?=[ \t\f\v\r\n]|(?![\s\S]))/y;
+// `#define ` up to the name; the name, followed by white space or the line's end (else the macro is function-like,
+// or the line is not so plain); then a replacement list free of `\`, quotes and comments to the line's end. A line
+// all three match is one logical line whose tokens are its text with white space between.
+const PLAIN_DEFINE_LEAD = /[ \t\f\v\r]*#[ \t\f\v\r]*define[ \t\f\v\r]+/y;
+const PLAIN_DEFINE_NAME = /[A-Za-z_$][\w$]*(?=[ \t\f\v\r\n]|(?![\s\S]))/y;
 const PLAIN_REPLACEMENT = /(?:[ \t\f\v\r][^\n\\'"/]*(?:\/(?![/*])[^\n\\'"/]*)*)?(?=\n|(?![\s\S]))/y;
-const isNamePart = (c: number): boolean => (c >= 97 && c <= 122) || (c >= 65 && c <= 90) || (c >= 48 && c <= 57) || c === 95 || c === 36;
 
 const MAX_INCLUDE_DEPTH = 200;
 const MAX_INCLUDES = 2000;
@@ -324,15 +324,16 @@ export function preprocess(entryUri: string, text: string, options: PreprocessOp
    * nothing, for any other line.
    */
   const definePlain = (source: string, start: number, uri: string, file: number, lineNumber: number | undefined): number => {
-    PLAIN_DEFINE_HEAD.lastIndex = start;
-    if (!PLAIN_DEFINE_HEAD.test(source)) return -1;
-    // Read back from where the matches ended (test() makes no match object): the name is the letters before it.
-    const nameEnd = PLAIN_DEFINE_HEAD.lastIndex;
+    // Each part's end read from where its match ended: test() makes no match object.
+    PLAIN_DEFINE_LEAD.lastIndex = start;
+    if (!PLAIN_DEFINE_LEAD.test(source)) return -1;
+    const nameStart = PLAIN_DEFINE_LEAD.lastIndex;
+    PLAIN_DEFINE_NAME.lastIndex = nameStart;
+    if (!PLAIN_DEFINE_NAME.test(source)) return -1;
+    const nameEnd = PLAIN_DEFINE_NAME.lastIndex;
     PLAIN_REPLACEMENT.lastIndex = nameEnd;
     if (!PLAIN_REPLACEMENT.test(source)) return -1;
     const end = PLAIN_REPLACEMENT.lastIndex;
-    let nameStart = nameEnd - 1;
-    while (isNamePart(source.charCodeAt(nameStart - 1))) nameStart--;
     const name = source.slice(nameStart, nameEnd);
     const line = lineNumber ?? lineOfFile.get(uri)?.(nameStart) ?? 1;
     current.macros.set(name, plain.add(file, start, nameEnd, end, line));
