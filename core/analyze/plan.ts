@@ -392,10 +392,14 @@ function compileSlot(
   const dim = dimOf(expr, dimOfName);
   compilingDims = undefined;
   if ('finding' in dim) {
+    compilingRefs = none;
+    compilingLookups = undefined;
     plan.finding(dim.finding);
     return undefined;
   }
   if (dim.dim !== '' && dim.dim !== spec.dim && !(spec.dim === '' && dim.dim === '%')) {
+    compilingRefs = none;
+    compilingLookups = undefined;
     plan.finding(
       error(Code.keyDimension, `\`${entry.key}\` is ${describeDim(spec.dim)}, but \`${entry.valueText}\` is ${describeDim(dim.dim)}`, entry.valueSpan),
     );
@@ -403,7 +407,8 @@ function compileSlot(
   }
   const soleIdentifier = expr.kind === 'ident' && !expr.ref && !blockRefs ? expr.name : undefined;
   const evaluate = compileValue(expr, firmwareConstant);
-  compilingDims = undefined;
+  // Nothing of this block stays referenced from the module once its slot is made.
+  compilingRefs = none;
   compilingLookups = undefined;
   if (blockRefs || upstream) plan.readsEnv = true;
   return { key: spec.key, spec, entry, evaluate, blockRefs: blockRefs ?? none, tolerance, upstream, soleIdentifier, expr };
