@@ -84,6 +84,8 @@ class Parser {
   /** A parenthesised type name at `pos` (after '('), or undefined without consuming. */
   private typeAt(): { type: CType; length: number } | undefined {
     const tokens = this.tokens;
+    // A type name is words: after '(' anything else is an expression (most parentheses), decided at once.
+    if (tokens[this.pos]?.kind !== 'ident') return undefined;
     const words: string[] = [];
     let j = this.pos;
     while (tokens[j]?.kind === 'ident' && TYPE_KEYWORDS.has(tokens[j].text)) words.push(tokens[j++].text);
