@@ -11,10 +11,11 @@ export class ProcessOutput {
   /** Some output waits in Node's stream (a terminal, or a pipe that would block): the process ends when it drains. */
   private queued = false;
 
-  constructor(private readonly fd: 1 | 2) {}
+  /** Asked of the descriptor once, not at every write. */
+  readonly terminal: boolean;
 
-  get terminal(): boolean {
-    return tty.isatty(this.fd);
+  constructor(private readonly fd: 1 | 2) {
+    this.terminal = tty.isatty(fd);
   }
 
   write(text: string): void {
