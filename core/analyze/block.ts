@@ -17,14 +17,15 @@ import { solveUnknowns } from './unknowns';
 import { checkClaims } from './mismatch';
 import { seriesFindings } from './series-check';
 import { blockKey } from '../block-keys';
+import { emptyRecord } from '../empty';
 
 const dataModels = (blockKey('data-model')?.words ?? []).map((w) => w.word as DataModelName);
 
 /** Overrides of a block without `?` keys: nothing solved, so nothing replaces a value (never written to). */
-const noOverrides: Record<string, number> = Object.freeze({}) as Record<string, number>;
+const noOverrides: Record<string, number> = emptyRecord;
 
 /** The results of a block stopped before its model ran: one shared empty record, never written. */
-const noValues: Record<string, number> = Object.freeze({}) as Record<string, number>;
+const noValues: Record<string, number> = emptyRecord;
 
 function hasError(findings: readonly Finding[]): boolean {
   for (let i = 0; i < findings.length; i++) if (findings[i].severity === 'error') return true;

@@ -10,6 +10,7 @@ import type { AnalyzeOptions, IdentifierSource } from './context';
 import { cFileSource, fromFileSource, noIdentifiers } from './sources';
 import { firmwareEntry } from './keys';
 import { unresolvedReferences } from './references';
+import { emptyList } from '../empty';
 
 export interface PreparedBlock {
   raw: RawBlock;
@@ -26,7 +27,7 @@ export interface PreparedDocument {
 }
 
 /** The findings of a block without any found before analysis: shared, never added to. */
-const noExtra: readonly Finding[] = Object.freeze([]);
+const noExtra: readonly Finding[] = emptyList;
 
 /** The one notice for a file above the size setting; the CLI uses it too, before reading such a file. */
 export function tooLargeAnalysis(uri: string, options: Pick<AnalyzeOptions, 'maxFileBytes'>): DocumentAnalysis {

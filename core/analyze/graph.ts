@@ -6,6 +6,7 @@ import { Code } from '../codes';
 import { referencesIn, type BlockRef } from '../value';
 import { editDistance } from './keys';
 import { isMetaEntry } from './keys';
+import { emptyList } from '../empty';
 
 /** References further up than this many blocks are refused: every evaluation walks the chain. */
 export const maxChainDepth = 64;
@@ -31,7 +32,7 @@ export interface ReferenceGraph {
 }
 
 /** One empty list for every block without references: nothing adds to it. */
-const noRefs: BlockRef[] = Object.freeze([]) as unknown as BlockRef[];
+const noRefs: BlockRef[] = emptyList;
 
 /** References written in a block's circuit values (claims and settings state numbers, not references). */
 export function blockReferences(raw: RawBlock): BlockRef[] {

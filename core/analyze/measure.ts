@@ -16,6 +16,7 @@ export function finiteRecord(results: Record<string, number>): Record<string, nu
 }
 import { evaluateParams, tolerancedKeys } from './evaluate';
 import type { Offsets } from './context';
+import { emptyRecord } from '../empty';
 
 /** The model's input; `nominal` adds each toleranced input's relative band (spread corners move the inputs instead). */
 export function modelInput(plan: Plan, values: Readonly<Record<string, number>>, nominal = false, overrides?: Readonly<Record<string, number>>): ModelInput {
@@ -24,7 +25,7 @@ export function modelInput(plan: Plan, values: Readonly<Record<string, number>>,
 }
 
 /** The bands of a block without a toleranced input: one shared record, read by models and the editor, never written. */
-const noBands: Record<string, Band> = Object.freeze({}) as Record<string, Band>;
+const noBands: Record<string, Band> = emptyRecord;
 
 /** Beyond this many toleranced inputs (2^n corners) the bands come from each key's own tolerance only. */
 const bandCornerLimit = 6;

@@ -3,6 +3,7 @@ import type { BlockEntry, Finding, RawBlock } from '../types';
 import type { CircuitModel } from '../circuits/model';
 import { Code } from '../codes';
 import { modelKeys } from './model-keys';
+import { emptyList } from '../empty';
 
 /** What the order depends on: the plan's model, given values (with the block keys they name) and `?` keys. */
 export interface OrderInput {
@@ -13,7 +14,7 @@ export interface OrderInput {
 }
 
 /** Shared by every order without findings: nothing adds to it. */
-const noFindings: Finding[] = Object.freeze([]) as unknown as Finding[];
+const noFindings: Finding[] = emptyList;
 
 function isUnknown(unknowns: ReadonlyArray<{ key: string }>, key: string): boolean {
   for (let i = 0; i < unknowns.length; i++) if (unknowns[i].key === key) return true;

@@ -11,6 +11,7 @@ import { modelKeys } from './model-keys';
 import { evaluationOrder } from './order';
 import { noReferences, type BlockOutput, type ReferenceSource, type UpstreamInput } from './references';
 import { registerValue } from './registers';
+import { emptyList, emptyRecord } from '../empty';
 
 export interface Slot {
   key: string;
@@ -99,7 +100,7 @@ function error(code: string, message: string, span: Span): Finding {
 }
 
 /** One empty list for every plan and slot that has none of a kind; a finished plan is never added to. */
-const none = Object.freeze([]) as unknown as never[];
+const none = emptyList;
 
 function hasError(findings: readonly Finding[]): boolean {
   for (let i = 0; i < findings.length; i++) if (findings[i].severity === 'error') return true;
@@ -164,8 +165,8 @@ class PlanBuilder {
 }
 
 /** The lists and ranges of a block that gives none: shared records, read by models and the editor, never written. */
-const noLists: Record<string, IntegerSet> = Object.freeze({}) as Record<string, IntegerSet>;
-const noRanges: Record<string, Interval> = Object.freeze({}) as Record<string, Interval>;
+const noLists: Record<string, IntegerSet> = emptyRecord;
+const noRanges: Record<string, Interval> = emptyRecord;
 
 const noLookups: ReadonlyMap<string, IdentifierLookup & { ok: true }> = new Map();
 

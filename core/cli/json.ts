@@ -3,6 +3,7 @@ import type { BlockAnalysis, Finding } from '../types';
 import { displayPath } from './files';
 import { locate } from './locate';
 import type { CheckedFile } from './run';
+import { emptyList } from '../empty';
 
 interface JsonDiagnostic {
   severity: Finding['severity'];
@@ -39,7 +40,7 @@ function pathShower(cwd: string): (uri: string) => string {
 }
 
 /** What an empty list writes: shared by every block without references or diagnostics. */
-const none: readonly never[] = Object.freeze([]);
+const none: readonly never[] = emptyList;
 
 function block(analysis: BlockAnalysis, file: CheckedFile, shownPath: (uri: string) => string) {
   const out: Record<string, unknown> = {

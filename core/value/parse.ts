@@ -6,6 +6,7 @@ import { error, isSpaceCode, lex, SPACE_CLASS } from './lexer';
 import { parseExpression } from './parser';
 import { splitTolerance } from './tolerance';
 import { decodeSuffix } from './units';
+import { emptyList } from '../empty';
 
 
 const IDENTIFIER = /^[A-Za-z_][A-Za-z0-9_]*$/;
@@ -33,7 +34,7 @@ const Q_UNIT = /[A-Za-z_\u00b5\u03bc\u03a9\u2126%]*bit\/s|[A-Za-z_\u00b5\u03bc\u
 const Q_PLUS_MINUS = /±|\+-|\+\/-/y;
 
 /** The findings of every value read without one: a shared empty list, never added to (a fresh one is made for any). */
-const noFindings = Object.freeze([]) as unknown as Finding[];
+const noFindings: Finding[] = emptyList;
 
 /** Where the number quickNumber last read ends (body index), and its dimension. */
 let quickEnd = 0;
