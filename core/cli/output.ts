@@ -3,7 +3,19 @@
 // stream machinery (a pipe's stream costs its setup at start and its teardown at exit). A terminal keeps Node's
 // stream, which knows the console's encoding on every platform.
 import * as fs from 'node:fs';
-import * as tty from 'node:tty';
+
+/**
+ * Whether the descriptor is a terminal. A terminal is a character device, so a pipe or a file is answered by one
+ * fstat, without loading node:tty (which loads node:net and Node's streams, ~30 modules compiled at start).
+ */
+export function isTerminal(fd: number): boolean {
+  try {
+    if (!fs.fstatSync(fd).isCharacterDevice()) return false;
+  } catch {
+    return false;
+  }
+  return (require('node:tty') as typeof import('node:tty')).isatty(fd);
+}
 
 export class ProcessOutput {
   /** The reader closed the pipe (`tickmark check --json | head`): later output goes nowhere, quietly. */
@@ -15,7 +27,7 @@ export class ProcessOutput {
   readonly terminal: boolean;
 
   constructor(private readonly fd: 1 | 2) {
-    this.terminal = tty.isatty(fd);
+    this.terminal = isTerminal(fd);
   }
 
   write(text: string): void {

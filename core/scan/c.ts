@@ -3,7 +3,7 @@
 import type { RawBlock, Span } from '../types';
 import { Code } from '../codes';
 import { BLANK_CLASS, lineEndAt, nextLineAt, skipBlanks, trimEnd } from './lines';
-import { COLON_PATTERN, EntryCollector, KEY_PATTERN, readEntryLine } from './entry';
+import { COLON_PATTERN, EntryCollector, KEY_PATTERN, readEntryLine, scannedEntry } from './entry';
 import { ignoredHeaderText, readHeaderName, startsWithWord, type HeaderName } from './header';
 import { CommentCursor, type CComment } from './c-comments';
 
@@ -44,7 +44,7 @@ class BlockBuilder {
     this.endedAtBlank = reading.kind === 'blank';
     if (reading.kind !== 'entry') return false;
     this.collector.add(reading.entry);
-    this.lastEnd = reading.entry.valueSpan.end;
+    this.lastEnd = reading.entry.valueEnd;
     return true;
   }
 
@@ -69,12 +69,7 @@ class BlockBuilder {
     const end = trimEnd(text, valueStart, lineEnd);
     if (end === valueStart) return -1;
     this.endedAtBlank = false;
-    this.collector.add({
-      key: text.slice(keyStart, keyEnd).toLowerCase(),
-      keySpan: { start: keyStart, end: keyEnd },
-      valueText: text.slice(valueStart, end),
-      valueSpan: { start: valueStart, end },
-    });
+    this.collector.add(scannedEntry(text, keyStart, keyEnd, valueStart, end));
     this.lastEnd = end;
     return lineEnd + 1;
   }
