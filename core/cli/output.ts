@@ -17,6 +17,15 @@ export function isTerminal(fd: number): boolean {
   return (require('node:tty') as typeof import('node:tty')).isatty(fd);
 }
 
+/**
+ * UTF-16 code units encoded per write. A report is written a piece at a time through one scratch buffer (three bytes
+ * at most per unit), not encoded whole into a new buffer: a megabyte report would touch a megabyte of fresh pages.
+ */
+const PIECE = 16384;
+let scratch: Buffer | undefined;
+
+const isHighSurrogate = (unit: number): boolean => unit >= 0xd800 && unit <= 0xdbff;
+
 export class ProcessOutput {
   /** The reader closed the pipe (`tickmark check --json | head`): later output goes nowhere, quietly. */
   private closed = false;
@@ -26,28 +35,40 @@ export class ProcessOutput {
   /** Asked of the descriptor once, not at every write. */
   readonly terminal: boolean;
 
-  constructor(private readonly fd: 1 | 2) {
+  constructor(private readonly fd: number) {
     this.terminal = isTerminal(fd);
   }
 
   write(text: string): void {
     if (this.closed) return;
     if (this.queued || this.terminal) return this.queue(text);
-    const bytes = Buffer.from(text, 'utf8');
-    let at = 0;
-    while (at < bytes.length) {
-      try {
-        at += fs.writeSync(this.fd, bytes, at);
-      } catch (cause) {
-        const code = (cause as NodeJS.ErrnoException).code;
-        if (code === 'EPIPE') {
-          this.closed = true;
-          return;
+    const buffer = (scratch ??= Buffer.allocUnsafeSlow(PIECE * 3));
+    for (let from = 0; from < text.length;) {
+      let to = Math.min(text.length, from + PIECE);
+      // A piece never ends between the halves of a surrogate pair: each half alone would be written as U+FFFD.
+      if (to < text.length && isHighSurrogate(text.charCodeAt(to - 1))) to--;
+      const length = buffer.write(text.slice(from, to), 0, 'utf8');
+      let at = 0;
+      while (at < length) {
+        try {
+          at += fs.writeSync(this.fd, buffer, at, length - at);
+        } catch (cause) {
+          const code = (cause as NodeJS.ErrnoException).code;
+          if (code === 'EPIPE') {
+            this.closed = true;
+            return;
+          }
+          // A descriptor another process made non-blocking, and full: the rest goes through the stream, in order
+          // (the scratch buffer is written over by the next piece, so its bytes are copied).
+          if (code === 'EAGAIN') {
+            this.queue(Buffer.from(buffer.subarray(at, length)));
+            if (to < text.length) this.queue(text.slice(to));
+            return;
+          }
+          throw cause;
         }
-        // A descriptor another process made non-blocking, and full: the rest goes through the stream, in order.
-        if (code === 'EAGAIN') return this.queue(bytes.subarray(at));
-        throw cause;
       }
+      from = to;
     }
   }
 

@@ -8,6 +8,7 @@ import Ajv from 'ajv';
 import addFormats from 'ajv-formats';
 import { spawnSync } from 'node:child_process';
 import { main } from '../../core/cli/main';
+import { ProcessOutput } from '../../core/cli/output';
 import { wantsColor } from '../../core/cli/color';
 import { codeTable } from '../../core/codes';
 import { runCli, tempWorkspace } from '../helpers/cli';
@@ -243,6 +244,27 @@ describe('tickmark colour', () => {
     const code = spawnSync('/bin/bash', ['-c', `"${process.execPath}" "${bin}" check --json stale.md | head -c 100 >/dev/null; exit \${PIPESTATUS[0]}`], { cwd: dir, encoding: 'utf8' });
     assert.equal(code.stderr, '', 'no error or stack trace from the closed pipe');
     assert.equal(code.status, full.status, 'the exit code is the check\'s, as without the early close');
+  });
+});
+
+describe('command output to a file or pipe', () => {
+  it('writes a long report piece by piece with every character whole', () => {
+    // RFC 3629: a character beyond U+FFFF is one four-byte sequence (never two three-byte halves); Node's
+    // Buffer.from is the reference encoding. The pair straddles the first piece boundary, others follow it.
+    const text = 'a'.repeat(16383) + '\u{1F552}' + '±'.repeat(20000) + '\u{10FFFF}x\n';
+    const dir = workspace({});
+    const file = path.join(dir, 'out.txt');
+    const fd = fs.openSync(file, 'w');
+    try {
+      const output = new ProcessOutput(fd);
+      output.write(text);
+      output.write('');
+      output.write('end\n');
+      assert.ok(output.flushed);
+    } finally {
+      fs.closeSync(fd);
+    }
+    assert.ok(fs.readFileSync(file).equals(Buffer.from(text + 'end\n', 'utf8')));
   });
 });
 
