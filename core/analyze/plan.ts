@@ -11,7 +11,7 @@ import { modelKeys } from './model-keys';
 import { evaluationOrder } from './order';
 import { noReferences, type BlockOutput, type ReferenceSource, type UpstreamInput } from './references';
 import { registerValue } from './registers';
-import { emptyList, emptyRecord } from '../empty';
+import { emptyList, emptyRecord, keptList } from '../empty';
 
 export interface Slot {
   key: string;
@@ -294,7 +294,7 @@ export function buildPlan(
     ranges: ranges ?? noRanges,
     unknowns: built.unknowns,
     findings: built.findings,
-    identifiers: built.identifiers,
+    identifiers: keptList(built.identifiers),
     references: built.references,
     upstreamInputs: built.upstreamInputs,
     steps,

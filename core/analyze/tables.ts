@@ -114,7 +114,8 @@ function moved(table: ConstantTable, filePath: string, before: Stripped, after: 
     };
   };
   const resolution = (r: ConstantResolution): ConstantResolution => {
-    if (r.ok) return { ...r, definition: definition(r.definition)! };
+    // Named fields, not a spread: a resolved lookup makes its value when read (core/c/table.ts, Resolved).
+    if (r.ok) return { ok: true, value: r.value, definition: definition(r.definition)! };
     const out = { ...r };
     if (r.definition) out.definition = definition(r.definition);
     if (r.at && r.at.uri === filePath) out.at = { ...r.at, span: span(r.at.span) };

@@ -31,6 +31,9 @@ export type ConstantResolution =
   | { ok: true; value: CValue; definition: ConstantDefinition }
   | { ok: false; message: string; code: string; at?: { uri: string; span: Span }; definition?: ConstantDefinition; runtime?: string };
 
+/** A lookup that did not resolve. */
+type Unresolved = Extract<ConstantResolution, { ok: false }>;
+
 export type ExpressionResult = { ok: true; value: CValue } | { ok: false; message: string; code: string; span?: Span };
 
 export interface ConstantTable {
@@ -118,6 +121,27 @@ class PlainDefinition implements ConstantDefinition {
   }
 }
 
+/**
+ * A constant that resolved: its value as C evaluated it (what the constants that read it take) and its definition;
+ * the reported value is made when read. One object per name looked up, where a firmware file's blocks read
+ * thousands of names and each kept object is copied through V8's young generation on a cold start.
+ */
+class Resolved {
+  declare readonly ok: true;
+  declare readonly val: Val;
+  declare readonly definition: ConstantDefinition;
+
+  constructor(val: Val, definition: ConstantDefinition) {
+    this.ok = true;
+    this.val = val;
+    this.definition = definition;
+  }
+
+  get value(): CValue {
+    return toCValue(this.val);
+  }
+}
+
 /** `sole`: the body's sole literal, when the caller has found it already (null: it has none). */
 function definitionOf(d: MacroDef | Declaration, sole?: SourceToken | null): ConstantDefinition {
   if (sole === undefined) {
@@ -134,13 +158,12 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
   const ts = typeSystem(options.dataModel, options.charSigned);
   const pre = preprocess(entryUri, text, { ...options, ts, maxFileBytes: options.maxFileBytes ?? 1_000_000, maxHeaderBytes: options.maxHeaderBytes ?? DEFAULT_MAX_HEADER_BYTES });
   const { root } = pre;
-  const memo = new Map<string, ConstantResolution>();
-  const values = new Map<string, Val>();
+  const memo = new Map<string, Unresolved | Resolved>();
   const active: string[] = [];
   const typeNamed = (n: string): CType | TypeConflict | undefined => root.typeNamed(n) ?? ts.named.get(n);
   const macro = (n: string): MacroDef | undefined => { const b = root.macro(n); return b?.kind === 'def' ? b.def : undefined; };
 
-  const fail = (e: EvalError): ConstantResolution => ({
+  const fail = (e: EvalError): Unresolved => ({
     ok: false, message: e.err, code: e.code, at: e.tok ? { uri: e.tok.uri, span: { start: e.tok.start, end: e.tok.end } } : undefined, runtime: e.runtime,
   });
 
@@ -161,14 +184,14 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     }
     if (b?.kind === 'def' && b.def.params) return { err: `${name} is a function-like macro; it needs arguments`, code: Code.cSyntax, tok };
     const r = lookup(name);
-    if (r.ok) return values.get(name) as Val;
+    if (r.ok) return r.val;
     const runtime = r.code === Code.cRuntime ? `reads ${name}, which ${r.runtime}` : undefined;
     return { err: r.message, code: r.code, named: true, runtime, tok: r.at ? { ...tok, uri: r.at.uri, start: r.at.span.start, end: r.at.span.end } : tok };
   };
 
   const evalContext: EvalContext = { ts, identifier };
 
-  const finish = (name: string, x: EvalResult, def: MacroDef | Declaration, sole?: SourceToken | null): ConstantResolution => {
+  const finish = (name: string, x: EvalResult, def: MacroDef | Declaration, sole?: SourceToken | null): Unresolved | Resolved => {
     // Undefined behaviour names the constant it sits in, once: outer constants pass the message on as it is.
     if (isError(x) && x.code === Code.cRuntime) {
       // Named with its line, and what makes it a run-time value: the variable or the call it reaches.
@@ -177,8 +200,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       return { ok: false, code: x.code, message: `${name} (${where(def)}) is only known at run time: it ${x.runtime}`, runtime: `${x.runtime}`, definition: definitionOf(def, sole) };
     }
     if (isError(x)) return { ...fail(x.code === Code.cUndefined && !x.named ? { ...x, err: `${name}: ${x.err}` } : x), definition: definitionOf(def, sole) };
-    values.set(name, x);
-    return { ok: true, value: toCValue(x), definition: definitionOf(def, sole) };
+    return new Resolved(x, definitionOf(def, sole));
   };
 
   /** A body that is one number or character constant, maybe parenthesised: what evaluating it gives, read directly. */
@@ -205,7 +227,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     else {
       const p = lookup(d.previous);
       if (!p.ok) return { err: p.message, code: p.code };
-      const before = values.get(d.previous) as Val;
+      const before = p.val;
       x = { v: (before.v as bigint) + 1n, t: before.t };
     }
     if (isError(x)) return x;
@@ -214,7 +236,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     return fits(x.v, ts.int) ? { v: x.v, t: ts.int } : x;
   };
 
-  const compute = (name: string, mb: Binding<MacroDef> | undefined): ConstantResolution => {
+  const compute = (name: string, mb: Binding<MacroDef> | undefined): Unresolved | Resolved => {
     if (mb?.kind === 'conflict') {
       return { ok: false, code: Code.cConditional, message: `${name} is defined differently under #if branches (${mb.defs.map(where).join(', ')}); ${undecidedNote(mb.conditions)}` };
     }
@@ -238,7 +260,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     return { ok: false, code: Code.cUnknown, message: `${name} is not defined in this file or the headers it includes${undefNote}${missing}` };
   };
 
-  const lookup = (name: string): ConstantResolution => {
+  const lookup = (name: string): Unresolved | Resolved => {
     const known = memo.get(name);
     if (known) return known;
     const at = active.indexOf(name);
@@ -247,7 +269,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
     const mb = root.macro(name);
     if (active.length === 0 && !mb) warmEnumChain(name);
     active.push(name);
-    let r: ConstantResolution;
+    let r: Unresolved | Resolved;
     try {
       r = compute(name, mb);
     } catch (e) {

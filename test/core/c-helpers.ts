@@ -22,9 +22,11 @@ export const valueOf = (t: ConstantTable, name: string): bigint | number | strin
   return r.ok ? r.value.value : `${r.code}: ${r.message}`;
 };
 
-/** A lookup as plain data, every place of its definition read (a plain macro's places are made when asked). */
+/** A lookup as plain data, its value and every place of its definition read (both made when asked). */
 export const resolutionData = (r: ConstantResolution): unknown => {
   const d = r.definition;
-  if (!d) return r;
-  return { ...r, definition: { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal: d.literal } };
+  const definition = d && { name: d.name, uri: d.uri, line: d.line, span: d.span, nameSpan: d.nameSpan, literal: d.literal };
+  // A resolved lookup makes its value when read: named fields, not a spread.
+  if (r.ok) return { ok: true, value: r.value, definition };
+  return d ? { ...r, definition } : r;
 };
