@@ -130,11 +130,14 @@ class Resolved {
   declare readonly ok: true;
   declare readonly val: Val;
   declare readonly definition: ConstantDefinition;
+  /** Read from a body that is one number or character constant: as quick to read again as to keep (see lookup). */
+  declare readonly literal: boolean;
 
-  constructor(val: Val, definition: ConstantDefinition) {
+  constructor(val: Val, definition: ConstantDefinition, literal: boolean) {
     this.ok = true;
     this.val = val;
     this.definition = definition;
+    this.literal = literal;
   }
 
   get value(): CValue {
@@ -191,7 +194,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
 
   const evalContext: EvalContext = { ts, identifier };
 
-  const finish = (name: string, x: EvalResult, def: MacroDef | Declaration, sole?: SourceToken | null): Unresolved | Resolved => {
+  const finish = (name: string, x: EvalResult, def: MacroDef | Declaration, sole?: SourceToken | null, literal = false): Unresolved | Resolved => {
     // Undefined behaviour names the constant it sits in, once: outer constants pass the message on as it is.
     if (isError(x) && x.code === Code.cRuntime) {
       // Named with its line, and what makes it a run-time value: the variable or the call it reaches.
@@ -200,7 +203,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       return { ok: false, code: x.code, message: `${name} (${where(def)}) is only known at run time: it ${x.runtime}`, runtime: `${x.runtime}`, definition: definitionOf(def, sole) };
     }
     if (isError(x)) return { ...fail(x.code === Code.cUndefined && !x.named ? { ...x, err: `${name}: ${x.err}` } : x), definition: definitionOf(def, sole) };
-    return new Resolved(x, definitionOf(def, sole));
+    return new Resolved(x, definitionOf(def, sole), literal);
   };
 
   /** A body that is one number or character constant, maybe parenthesised: what evaluating it gives, read directly. */
@@ -246,7 +249,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       const body = bodyOf(m);
       const sole = soleLiteral(body) ?? null;
       const literal = literalValue(sole ?? undefined);
-      if (literal) return finish(name, literal, m, sole);
+      if (literal) return finish(name, literal, m, sole, true);
       // The body's identifiers are hidden from the macro itself (C11 6.10.3.4p2).
       return finish(name, evalTokens(body, name), m, sole);
     }
@@ -277,7 +280,9 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       if (!(e instanceof RangeError)) throw e;
       r = { ok: false, code: Code.cExpansionLimit, message: `${name} nests too deeply to evaluate` };
     } finally { active.pop(); }
-    memo.set(name, r);
+    // A value read straight from a literal body is not kept: a firmware file's blocks read thousands of such macros
+    // once each, and a kept answer outlives the analysis step that asked (copied through V8's young generation).
+    if (!(r instanceof Resolved && r.literal)) memo.set(name, r);
     return r;
   };
 
