@@ -1,6 +1,7 @@
 // Timing blocks in C/C++ comments: a comment line starting `@timing`, then the comment lines of
 // `key: value` right after it (a run of `//` lines, or the lines of one `/* */`), up to the first other line.
-import type { RawBlock, Span } from '../types';
+import type { BlockEntry, Finding, RawBlock, Span } from '../types';
+import { keptList } from '../empty';
 import { Code } from '../codes';
 import { BLANK_CLASS, lineEndAt, nextLineAt, skipBlanks, trimEnd } from './lines';
 import { COLON_PATTERN, EntryCollector, KEY_PATTERN, readEntryLine, scannedEntry } from './entry';
@@ -75,12 +76,51 @@ class BlockBuilder {
   }
 
   build(): RawBlock {
-    const span = { start: this.headerSpan.start, end: this.lastEnd };
     const { entries, findings } = this.collector;
-    // Two literals rather than a spread of the optional name: one block per header in the file.
     const { name, nameSpan } = this.name;
-    if (name === undefined) return { host: 'c', headerSpan: this.headerSpan, span, entries, findings };
-    return { host: 'c', name, nameSpan, headerSpan: this.headerSpan, span, entries, findings };
+    return new ScannedBlock(name, nameSpan ? nameSpan.start : -1, nameSpan ? nameSpan.end : -1, this.headerSpan.start, this.headerSpan.end, this.lastEnd, keptList(entries), findings);
+  }
+}
+
+/**
+ * A block of a C file as its places' offsets: the spans are made when read. The blocks of a file live as long as its
+ * analysis, and each object kept that long is copied through V8's young generation on a cold start (see ScannedEntry).
+ */
+class ScannedBlock implements RawBlock {
+  // Assigned in the constructor alone (declared, not defined): one block per header in the file.
+  declare readonly host: 'c';
+  declare readonly name: string | undefined;
+  declare readonly entries: BlockEntry[];
+  declare readonly findings: Finding[];
+  /** The name's place (-1 without a name), the header line's, and where the block ends. */
+  declare private readonly nameStart: number;
+  declare private readonly nameEnd: number;
+  declare private readonly headerStart: number;
+  declare private readonly headerEnd: number;
+  declare private readonly end: number;
+
+  constructor(name: string | undefined, nameStart: number, nameEnd: number, headerStart: number, headerEnd: number, end: number, entries: BlockEntry[], findings: Finding[]) {
+    this.host = 'c';
+    this.name = name;
+    this.entries = entries;
+    this.findings = findings;
+    this.nameStart = nameStart;
+    this.nameEnd = nameEnd;
+    this.headerStart = headerStart;
+    this.headerEnd = headerEnd;
+    this.end = end;
+  }
+
+  get nameSpan(): Span | undefined {
+    return this.nameStart < 0 ? undefined : { start: this.nameStart, end: this.nameEnd };
+  }
+
+  get headerSpan(): Span {
+    return { start: this.headerStart, end: this.headerEnd };
+  }
+
+  get span(): Span {
+    return { start: this.headerStart, end: this.end };
   }
 }
 
