@@ -26,6 +26,7 @@ function leadingDigits(text: string): number {
 const SUFFIX = /(?:[uU](?:ll|LL|l|L)?|(?:ll|LL|l|L)[uU]?)$/;
 
 const parsedByTypes = new WeakMap<TypeSystem, Map<string, Val | string>>();
+const MAX_PARSED = 256;
 let lastTypes: TypeSystem | undefined;
 let lastParsed = new Map<string, Val | string>();
 
@@ -38,7 +39,12 @@ export function parseNumber(text: string, ts: TypeSystem, pp = false): Val | str
   lastParsed = parsed;
   const key = pp ? '#' + text : text;
   let found = parsed.get(key);
-  if (found === undefined) parsed.set(key, (found = parseNumberUncached(text, ts, pp)));
+  if (found === undefined) {
+    // Bounded: the spellings a file repeats come back at once after a clear, and the thousands it spells once each
+    // (`1000`, `1001` …) are not kept for the table's life.
+    if (parsed.size >= MAX_PARSED) parsed.clear();
+    parsed.set(key, (found = parseNumberUncached(text, ts, pp)));
+  }
   return found;
 }
 

@@ -78,7 +78,7 @@ class BlockBuilder {
   build(): RawBlock {
     const { entries, findings } = this.collector;
     const { name, nameSpan } = this.name;
-    return new ScannedBlock(name, nameSpan ? nameSpan.start : -1, nameSpan ? nameSpan.end : -1, this.headerSpan.start, this.headerSpan.end, this.lastEnd, keptList(entries), findings);
+    return new ScannedBlock(name, nameSpan ? nameSpan.start : -1, this.headerSpan.start, this.headerSpan.end, this.lastEnd, keptList(entries), findings);
   }
 }
 
@@ -88,31 +88,31 @@ class BlockBuilder {
  */
 class ScannedBlock implements RawBlock {
   // Assigned in the constructor alone (declared, not defined): one block per header in the file.
-  declare readonly host: 'c';
   declare readonly name: string | undefined;
   declare readonly entries: BlockEntry[];
   declare readonly findings: Finding[];
-  /** The name's place (-1 without a name), the header line's, and where the block ends. */
+  /** Where the name starts (-1 without a name; it ends after the name's text), the header line, the block's end. */
   declare private readonly nameStart: number;
-  declare private readonly nameEnd: number;
   declare private readonly headerStart: number;
   declare private readonly headerEnd: number;
   declare private readonly end: number;
 
-  constructor(name: string | undefined, nameStart: number, nameEnd: number, headerStart: number, headerEnd: number, end: number, entries: BlockEntry[], findings: Finding[]) {
-    this.host = 'c';
+  constructor(name: string | undefined, nameStart: number, headerStart: number, headerEnd: number, end: number, entries: BlockEntry[], findings: Finding[]) {
     this.name = name;
     this.entries = entries;
     this.findings = findings;
     this.nameStart = nameStart;
-    this.nameEnd = nameEnd;
     this.headerStart = headerStart;
     this.headerEnd = headerEnd;
     this.end = end;
   }
 
+  get host(): 'c' {
+    return 'c';
+  }
+
   get nameSpan(): Span | undefined {
-    return this.nameStart < 0 ? undefined : { start: this.nameStart, end: this.nameEnd };
+    return this.name === undefined ? undefined : { start: this.nameStart, end: this.nameStart + this.name.length };
   }
 
   get headerSpan(): Span {

@@ -32,29 +32,30 @@ const BLANK: LineReading = Object.freeze({ kind: 'blank' });
  * pages touched): one object per line instead of three (README, Speed).
  */
 export class ScannedEntry implements BlockEntry {
-  // Assigned in the constructor alone (declared, not defined): one entry per scanned line.
+  // Assigned in the constructor alone (declared, not defined): one entry per scanned line. The ends are not kept:
+  // the key is the spelled key lower-cased (ASCII, so as long) and the value is the text where it stands.
   declare readonly key: string;
   declare readonly valueText: string;
   declare readonly keyStart: number;
-  declare readonly keyEnd: number;
   declare readonly valueStart: number;
-  declare readonly valueEnd: number;
 
-  constructor(key: string, valueText: string, keyStart: number, keyEnd: number, valueStart: number, valueEnd: number) {
+  constructor(key: string, valueText: string, keyStart: number, valueStart: number) {
     this.key = key;
     this.valueText = valueText;
     this.keyStart = keyStart;
-    this.keyEnd = keyEnd;
     this.valueStart = valueStart;
-    this.valueEnd = valueEnd;
   }
 
   get keySpan(): Span {
-    return { start: this.keyStart, end: this.keyEnd };
+    return { start: this.keyStart, end: this.keyStart + this.key.length };
   }
 
   get valueSpan(): Span {
     return { start: this.valueStart, end: this.valueEnd };
+  }
+
+  get valueEnd(): number {
+    return this.valueStart + this.valueText.length;
   }
 }
 
@@ -62,7 +63,7 @@ export class ScannedEntry implements BlockEntry {
 const seenKeys = new Map<string, string>();
 const MAX_SEEN_KEYS = 1024;
 
-/** The entry of text[keyStart, keyEnd) `:` text[valueStart, valueEnd): its key lower-cased and shared. */
+/** The entry of text[keyStart, keyEnd) `:` text[valueStart, valueEnd): its key (ASCII key characters) lower-cased and shared. */
 export function scannedEntry(text: string, keyStart: number, keyEnd: number, valueStart: number, valueEnd: number): ScannedEntry {
   const spelled = text.slice(keyStart, keyEnd).toLowerCase();
   let key = seenKeys.get(spelled);
@@ -70,7 +71,7 @@ export function scannedEntry(text: string, keyStart: number, keyEnd: number, val
     key = spelled;
     if (seenKeys.size < MAX_SEEN_KEYS) seenKeys.set(spelled, spelled);
   }
-  return new ScannedEntry(key, text.slice(valueStart, valueEnd), keyStart, keyEnd, valueStart, valueEnd);
+  return new ScannedEntry(key, text.slice(valueStart, valueEnd), keyStart, valueStart);
 }
 
 /** Reads text[from, to) as `key: value`. */
