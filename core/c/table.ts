@@ -162,6 +162,8 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
   const pre = preprocess(entryUri, text, { ...options, ts, maxFileBytes: options.maxFileBytes ?? 1_000_000, maxHeaderBytes: options.maxHeaderBytes ?? DEFAULT_MAX_HEADER_BYTES });
   const { root } = pre;
   const memo = new Map<string, Unresolved | Resolved>();
+  /** Macros computed once and not kept yet (see kept). */
+  const readOnce = new Set<string>();
   const active: string[] = [];
   const typeNamed = (n: string): CType | TypeConflict | undefined => root.typeNamed(n) ?? ts.named.get(n);
   const macro = (n: string): MacroDef | undefined => { const b = root.macro(n); return b?.kind === 'def' ? b.def : undefined; };
@@ -280,10 +282,22 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
       if (!(e instanceof RangeError)) throw e;
       r = { ok: false, code: Code.cExpansionLimit, message: `${name} nests too deeply to evaluate` };
     } finally { active.pop(); }
-    // A value read straight from a literal body is not kept: a firmware file's blocks read thousands of such macros
-    // once each, and a kept answer outlives the analysis step that asked (copied through V8's young generation).
-    if (!(r instanceof Resolved && r.literal)) memo.set(name, r);
+    if (!(r instanceof Resolved) || kept(name, mb, r)) memo.set(name, r);
     return r;
+  };
+
+  /**
+   * Whether a macro's value is kept for the next lookup. A firmware file's blocks read thousands of macros once each,
+   * and a kept answer outlives the analysis step that asked (copied through V8's young generation): a value read
+   * straight from a literal body is never kept (reading it again costs no more), a computed one from its second
+   * reading on (a clock every timer reads). Declarations are always kept: an enum's implicit values count on it.
+   */
+  const kept = (name: string, mb: Binding<MacroDef> | undefined, r: Resolved): boolean => {
+    if (mb?.kind !== 'def') return true;
+    if (r.literal) return false;
+    if (readOnce.delete(name)) return true;
+    readOnce.add(name);
+    return false;
   };
 
   /** Resolves a long run of implicit enum values oldest first, so the recursion stays one member deep. */
