@@ -6,6 +6,8 @@ export interface ModelKeys {
   params: Map<string, CircuitModel['params'][number]>;
   quantities: Map<string, QuantityParam>;
   quantityList: QuantityParam[];
+  /** Every choice at its default: shared, frozen, by the plans of the blocks that choose nothing. */
+  defaultChoices: Readonly<Record<string, string>>;
 }
 
 const keysByModel = new WeakMap<CircuitModel, ModelKeys>();
@@ -16,7 +18,9 @@ export function modelKeys(model: CircuitModel): ModelKeys {
     const params = new Map<string, CircuitModel['params'][number]>();
     for (const p of model.params) if (!params.has(p.key)) params.set(p.key, p);
     const quantityList = model.params.filter((p): p is QuantityParam => p.kind === 'quantity');
-    keys = { params, quantities: new Map(quantityList.map((p) => [p.key, p])), quantityList };
+    const defaultChoices: Record<string, string> = {};
+    for (const p of model.params) if (p.kind === 'choice' && !(p.key in defaultChoices)) defaultChoices[p.key] = p.default;
+    keys = { params, quantities: new Map(quantityList.map((p) => [p.key, p])), quantityList, defaultChoices: Object.freeze(defaultChoices) };
     keysByModel.set(model, keys);
   }
   return keys;

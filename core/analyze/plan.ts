@@ -185,7 +185,8 @@ export function buildPlan(
   const keys = modelKeys(model);
   const built = new PlanBuilder();
   const slots = new Map<string, Slot>();
-  const choices: Record<string, string> = {};
+  let choices: Record<string, string> = {};
+  let chosen = false;
   let lists: Record<string, IntegerSet> | undefined;
   let ranges: Record<string, Interval> | undefined;
   const quantityKeys = keys.quantities;
@@ -206,7 +207,10 @@ export function buildPlan(
     }
     if (spec.kind === 'choice') {
       const word = entry.valueText.trim().toLowerCase();
-      if (spec.options.includes(word)) choices[spec.key] = word;
+      if (spec.options.includes(word)) {
+        choices[spec.key] = word;
+        chosen = true;
+      }
       else
         built.finding(
           error(Code.valueOption, `\`${entry.key}\` takes ${spec.options.map((o) => `\`${o}\``).join(' or ')}, not \`${entry.valueText}\`${didYouMean(word, spec.options)}`, entry.valueSpan),
@@ -268,9 +272,13 @@ export function buildPlan(
     const t = slot.tolerance;
     if (t && (t.plus > 0 || t.minus > 0)) built.toleranced(spec.key);
   }
-  for (let i = 0; i < model.params.length; i++) {
-    const spec = model.params[i];
-    if (spec.kind === 'choice' && !(spec.key in choices)) choices[spec.key] = spec.default;
+  // A block that chooses nothing shares its model's defaults (one object kept per block fewer, see core/empty.ts).
+  if (!chosen) choices = keys.defaultChoices as Record<string, string>;
+  else {
+    for (let i = 0; i < model.params.length; i++) {
+      const spec = model.params[i];
+      if (spec.kind === 'choice' && !(spec.key in choices)) choices[spec.key] = spec.default;
+    }
   }
   const blockEntries = entries ?? new Map(raw.entries.map((e) => [e.key, e]));
   const ordered = evaluationOrder({ model, entries: blockEntries, slots, unknowns: built.unknowns }, raw);
