@@ -31,6 +31,7 @@ export function cFileSource(filePath: string, text: string, options: AnalyzeOpti
         maxHeaderBytes: options.maxHeaderBytes,
         config,
         headerMemo: cache.headers,
+        reused: options.tables !== undefined,
       });
       // An open document's tables are kept across edits that leave its code, its configuration and its headers as they were.
       const key = JSON.stringify([dataModel, options.includeDirs, roots, options.maxFileBytes, options.maxHeaderBytes ?? null, config ?? null]);

@@ -59,6 +59,8 @@ export interface ConstantTableOptions {
   config?: BuildConfig;
   /** Preprocessed headers shared between tables, so an unchanged header is not read again. */
   headerMemo?: HeaderMemo;
+  /** The table answers again after edits (an editor keeps it): every answer is kept. Without it, what is read twice. */
+  reused?: boolean;
 }
 
 /** Vendor device headers run to 2 MB; 8 MB leaves room without reading anything unbounded. */
@@ -287,13 +289,15 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
   };
 
   /**
-   * Whether a macro's value is kept for the next lookup. A firmware file's blocks read thousands of macros once each,
-   * and a kept answer outlives the analysis step that asked (copied through V8's young generation): a value read
-   * straight from a literal body is never kept (reading it again costs no more), a computed one from its second
-   * reading on (a clock every timer reads). Declarations are always kept: an enum's implicit values count on it.
+   * Whether a macro's value is kept for the next lookup. A table an editor keeps across edits keeps every answer: its
+   * blocks' answers are checked again after each edit. A table for one check keeps what is read again: its blocks
+   * read thousands of macros once each, and a kept answer outlives the analysis step that asked (copied through V8's
+   * young generation on a cold start). There a value read straight from a literal body is never kept (reading it
+   * again costs no more), a computed one from its second reading on (a clock every timer reads). Declarations are
+   * always kept: an enum's implicit values count on it.
    */
   const kept = (name: string, mb: Binding<MacroDef> | undefined, r: Resolved): boolean => {
-    if (mb?.kind !== 'def') return true;
+    if (options.reused || mb?.kind !== 'def') return true;
     if (r.literal) return false;
     if (readOnce.delete(name)) return true;
     readOnce.add(name);
