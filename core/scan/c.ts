@@ -122,6 +122,13 @@ class ScannedBlock implements RawBlock {
   get span(): Span {
     return { start: this.headerStart, end: this.end };
   }
+
+  /** The plain shape, spans included, wherever a block is sent as JSON (the language server's `tickmark/block`). */
+  toJSON(): RawBlock {
+    const { name, entries, findings } = this;
+    if (name === undefined) return { host: 'c', headerSpan: this.headerSpan, span: this.span, entries, findings };
+    return { host: 'c', name, nameSpan: this.nameSpan, headerSpan: this.headerSpan, span: this.span, entries, findings };
+  }
 }
 
 /**

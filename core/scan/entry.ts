@@ -57,6 +57,11 @@ export class ScannedEntry implements BlockEntry {
   get valueEnd(): number {
     return this.valueStart + this.valueText.length;
   }
+
+  /** The plain shape, spans included, wherever an entry is sent as JSON (the language server's `tickmark/block`). */
+  toJSON(): BlockEntry {
+    return { key: this.key, keySpan: this.keySpan, valueText: this.valueText, valueSpan: this.valueSpan };
+  }
 }
 
 /** Keys already seen, each kept as one string: a file's thousand `clock:` lines share one. Bounded, for hostile text. */

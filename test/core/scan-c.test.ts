@@ -22,6 +22,22 @@ function entriesOf(text: string, index = 0): Array<[string, string]> {
 }
 
 describe('scanC', () => {
+  it('sends a block as JSON with every span, as the language server answers `tickmark/block`', () => {
+    // JSON-RPC carries JSON text (JSON.stringify): the places a client reads must be in it, not only in getters.
+    const text = '/* @timing tick\n * circuit: timer\n */\n';
+    const sent = JSON.parse(JSON.stringify(scanC(text)[0]));
+    const at = (s: string) => ({ start: text.indexOf(s), end: text.indexOf(s) + s.length });
+    assert.deepStrictEqual(sent, {
+      host: 'c',
+      name: 'tick',
+      nameSpan: at('tick'),
+      headerSpan: at('@timing tick'),
+      span: { start: text.indexOf('@timing'), end: text.indexOf('timer') + 'timer'.length },
+      entries: [{ key: 'circuit', keySpan: at('circuit'), valueText: 'timer', valueSpan: at('timer') }],
+      findings: [],
+    });
+  });
+
   it('reads the DESIGN.md example with exact spans', () => {
     const [block] = scanC(designExample);
     assert.equal(block.host, 'c');
