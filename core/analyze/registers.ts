@@ -47,7 +47,7 @@ export function evaluateIn(table: ConstantTable, exprText: string): ExpressionLo
 const plainDecimal = /^\s*(?:0|[1-9]\d{0,8})\s*$/;
 
 /** A tolerance or a `?` or block reference belongs to the value language; so does a lone name (it resolves the same). */
-const VALUE_LANGUAGE = /[?@±]|\+-\s*[\d.]+\s*(?:%|ppm)\s*$|%\s*$/;
+const VALUE_LANGUAGE = /[?@\u00b1]|\+-\s*[\d.]+\s*(?:%|ppm)\s*$|%\s*$/;
 
 /**
  * A register key's value as C: the number and the firmware names it read, or a finding. Undefined when the value

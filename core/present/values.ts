@@ -59,7 +59,7 @@ export function bandText(model: CircuitModel, key: string, min: number, max: num
   const low = formatResult(model, key, min);
   const high = formatResult(model, key, max);
   // Signed values (errors) keep both units: `−13.8–+13.7 %` would read as a subtraction.
-  if (/^[−+-]/.test(low) || /^[−+-]/.test(high)) return `${low} … ${high}`;
+  if (/^[\u2212+-]/.test(low) || /^[\u2212+-]/.test(high)) return `${low} … ${high}`;
   const lowParts = low.split(' ');
   const highParts = high.split(' ');
   if (lowParts.length === 2 && highParts.length === 2 && lowParts[1] === highParts[1]) return `${lowParts[0]}–${high}`;

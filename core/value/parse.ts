@@ -31,7 +31,7 @@ const Q_MANTISSA = /\d+(?:\.\d+)?|\.\d+/y;
 const Q_POWER = /[eE][+-]?\d+/y;
 const Q_SPACES = new RegExp(`${SPACE_CLASS}*`, 'y');
 const Q_UNIT = /[A-Za-z_\u00b5\u03bc\u03a9\u2126%]*bit\/s|[A-Za-z_\u00b5\u03bc\u03a9\u2126%]+/y;
-const Q_PLUS_MINUS = /±|\+-|\+\/-/y;
+const Q_PLUS_MINUS = /\u00b1|\+-|\+\/-/y; // ± +- +/-
 
 /** The findings of every value read without one: a shared empty list, never added to (a fresh one is made for any). */
 const noFindings: Finding[] = emptyList;
