@@ -79,6 +79,34 @@ function diagnosticsOf(findings: readonly Finding[], file: CheckedFile, shownPat
   return findings.map((f) => diagnostic(f, file, shownPath));
 }
 
+/** Characters handed on at a time by writeJsonReport. */
+const PIECE = 1 << 16;
+
+/**
+ * The one-line report (a file or a pipe), handed to `out` in pieces of about 64K characters, exactly the text
+ * `jsonReport` makes without an indent: a 2,000-block report is never one megabyte string, and each block's objects
+ * are gone once written, so a cold check keeps less (DEVELOPERS.md). With an indent the report is written whole.
+ */
+export function writeJsonReport(checked: CheckedFile[], cwd: string, out: (text: string) => void, indent?: number): void {
+  if (indent) return out(jsonReport(checked, cwd, indent));
+  const shownPath = pathShower(cwd);
+  let text = '{"version":1,"files":[';
+  for (let f = 0; f < checked.length; f++) {
+    const file = checked[f];
+    text += `${f ? ',' : ''}{"path":${JSON.stringify(file.display)},"blocks":[`;
+    const blocks = file.analysis.blocks;
+    for (let i = 0; i < blocks.length; i++) {
+      text += (i ? ',' : '') + JSON.stringify(block(blocks[i], file, shownPath));
+      if (text.length >= PIECE) {
+        out(text);
+        text = '';
+      }
+    }
+    text += `],"diagnostics":${JSON.stringify(file.analysis.findings.map((d) => diagnostic(d, file, shownPath)))}}`;
+  }
+  out(text + ']}\n');
+}
+
 /** `indent`: spaces per level for a reader at a terminal; none gives one line. */
 export function jsonReport(checked: CheckedFile[], cwd: string, indent?: number): string {
   const shownPath = pathShower(cwd);

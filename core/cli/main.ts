@@ -7,7 +7,7 @@ import { wantsColor } from './color';
 import { ProcessOutput } from './output';
 import { checkFiles, cliOptions, rootsFor } from './run';
 import { ansiPaint, humanReport, noPaint } from './human';
-import { jsonReport } from './json';
+import { writeJsonReport } from './json';
 import { sarifReport } from './sarif';
 import { githubReport } from './github';
 import { version } from '../project';
@@ -217,7 +217,7 @@ function check(argv: string[], io: Io): number {
   const checked = checkFiles(files, options, (file) => displayPath(file, io.cwd), given);
   // A file or a pipe gets the report on one line (half the bytes); a terminal gets it indented.
   const indent = io.terminal ? 2 : undefined;
-  if (format === 'json') io.out(jsonReport(checked, io.cwd, indent));
+  if (format === 'json') writeJsonReport(checked, io.cwd, io.out, indent);
   else if (format === 'sarif') io.out(sarifReport(checked, io.cwd, version, indent));
   else if (format === 'github') io.out(githubReport(checked, io.cwd));
   else io.out(humanReport(checked, io.cwd, io.color ? ansiPaint : noPaint));

@@ -233,6 +233,18 @@ describe('tickmark colour', () => {
     }
   });
 
+  it('writes a long one-line report in pieces that make exactly the JSON of the whole', () => {
+    // ECMA-262 JSON.stringify of the parsed report is the reference: the pieces joined are that text, byte for byte.
+    const blocks = Array.from({ length: 400 }, (_, i) => staleNote.replace('timing tick', `timing tick-${i}`)).join('\n');
+    const dir = workspace({ 'stale.md': blocks });
+    const pieces: string[] = [];
+    main(['check', '--json', 'stale.md'], { out: (t) => pieces.push(t), err: () => undefined, cwd: dir, color: false, terminal: false });
+    const text = pieces.join('');
+    assert.ok(pieces.length > 1, 'more than one piece');
+    assert.equal(text, JSON.stringify(JSON.parse(text)) + '\n');
+    assert.equal(JSON.parse(text).files[0].blocks.length, 400);
+  });
+
   it('stops quietly when the reader closes the pipe early, keeping the exit code', () => {
     // Common practice of command-line tools: `tool | head` ends the tool without an error of its own. The reader
     // is the shell's `head` (coreutils), a real early-closing pipe; the report is large enough to outrun it.
