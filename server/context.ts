@@ -14,7 +14,11 @@ export interface ServerContext {
   documents: TextDocuments<TextDocument>;
   store: AnalysisStore;
   reader: FileReader;
-  settings(): ServerSettings;
+  /**
+   * The settings for a file: its workspace folder's, as the client answers workspace/configuration for that folder
+   * (a multi-root workspace may set `tickmark.c.defines` per folder). Without a file, the first folder's.
+   */
+  settings(file?: string): ServerSettings;
   /** Workspace folders as absolute paths. */
   roots(): string[];
   /** Reads the settings from the client again (workspace/configuration) before an answer that depends on them. */

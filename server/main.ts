@@ -9,7 +9,7 @@ import {
 import { TextDocument } from 'vscode-languageserver-textdocument';
 import type { At, ClientOptions, Contributors, Feature, ServerContext } from './context';
 import { features as builtIn } from './features';
-import { corePathOf, FileReader, isUriString } from './files';
+import { corePathOf, FileReader, folderOf, isUriString } from './files';
 import { cancelled } from './requests';
 import { defaultSettings, parseSettings, type ServerSettings } from './settings';
 import { AnalysisStore } from './store';
@@ -22,6 +22,8 @@ export function startServer(connection: Connection = createConnection(ProposedFe
   const documents = new TextDocuments(TextDocument);
   const reader = new FileReader({ get: (uri) => documents.get(uri), all: () => documents.all() });
   let settings: ServerSettings = defaultSettings;
+  /** Each workspace folder's settings, when the client answers workspace/configuration per folder. */
+  let folderSettings = new Map<string, ServerSettings>();
   let initialSettings: ServerSettings = defaultSettings;
   let folders: string[] = [];
   let canPullConfiguration = false;
@@ -30,16 +32,21 @@ export function startServer(connection: Connection = createConnection(ProposedFe
   const client: ClientOptions = {};
 
   const log = (message: string) => connection.console.error(message);
+  const settingsFor = (file?: string): ServerSettings => {
+    if (file === undefined || folderSettings.size === 0) return settings;
+    const folder = folderOf(file, folders);
+    return (folder !== undefined && folderSettings.get(folder)) || settings;
+  };
   const store = new AnalysisStore({
     documents: { get: (uri) => documents.get(uri), all: () => documents.all() },
     reader,
-    settings: () => settings,
+    settings: settingsFor,
     roots: () => folders,
     publish: (uri, docVersion, diagnostics) => void connection.sendDiagnostics({ uri, version: docVersion, diagnostics }),
     log,
   });
   const ctx: ServerContext = {
-    connection, documents, store, reader, settings: () => settings, roots: () => folders, client, log,
+    connection, documents, store, reader, settings: settingsFor, roots: () => folders, client, log,
     refreshSettings: () => (canPullConfiguration ? pullSettings() : Promise.resolve()),
   };
 
@@ -77,20 +84,27 @@ export function startServer(connection: Connection = createConnection(ProposedFe
     connection.workspace.onDidChangeWorkspaceFolders((e) => {
       const removed = new Set(e.removed.map(folderPath));
       folders = [...folders.filter((f) => !removed.has(f)), ...e.added.map(folderPath)];
-      store.invalidate();
+      if (canPullConfiguration) void pullSettings().then(() => store.invalidate());
+      else store.invalidate();
     });
   });
 
-  /** workspace/configuration for `tickmark`, over the initializationOptions; documents re-analysed when they differ. */
+  /**
+   * workspace/configuration for `tickmark`, once per workspace folder (each over the initializationOptions); documents
+   * re-analysed when anything differs. The first folder's settings also serve files outside every folder.
+   */
   const pullSettings = async (): Promise<void> => {
-    const before = settings;
+    const before = JSON.stringify([settings, [...folderSettings]]);
     try {
-      const [section] = await connection.workspace.getConfiguration([{ section: 'tickmark', scopeUri: folders[0] ? reader.uriOf(folders[0]) : undefined }]);
-      settings = parseSettings(section, initialSettings);
+      const asked = folders.length ? folders : [undefined];
+      const sections = await connection.workspace.getConfiguration(asked.map((folder) => ({ section: 'tickmark', scopeUri: folder === undefined ? undefined : reader.uriOf(folder) })));
+      const parsed = asked.map((_, i) => parseSettings(sections[i], initialSettings));
+      settings = parsed[0];
+      folderSettings = new Map(folders.map((folder, i) => [folder, parsed[i]]));
     } catch (cause) {
       log(`reading the tickmark settings failed: ${String(cause)}`);
     }
-    if (JSON.stringify(before) !== JSON.stringify(settings)) settingsChanged();
+    if (JSON.stringify([settings, [...folderSettings]]) !== before) settingsChanged();
   };
 
   const settingsChanged = (): void => {
@@ -104,6 +118,7 @@ export function startServer(connection: Connection = createConnection(ProposedFe
     const pushed = (change.settings as { tickmark?: unknown } | undefined)?.tickmark;
     if (pushed === undefined) return;
     settings = parseSettings(pushed, initialSettings);
+    folderSettings = new Map();
     settingsChanged();
   });
 

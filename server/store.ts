@@ -28,7 +28,8 @@ export interface Analysed {
 export interface StoreHost {
   documents: OpenDocuments;
   reader: FileReader;
-  settings(): ServerSettings;
+  /** A file's settings (its workspace folder's); without one, the first folder's. */
+  settings(file?: string): ServerSettings;
   roots(): string[];
   publish(uri: string, version: number | undefined, diagnostics: Diagnostic[]): void;
   log(message: string): void;
@@ -156,7 +157,7 @@ export class AnalysisStore {
 
   /** The core's options for a file: settings, workspace roots, and the reader that serves open buffers first. */
   optionsFor(corePath: string): AnalyzeOptions {
-    const settings = this.host.settings();
+    const settings = this.host.settings(corePath);
     const roots = this.host.roots();
     const base = folderOf(corePath, roots);
     const maxFileBytes = settings.maxSizeKB * 1024;

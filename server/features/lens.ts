@@ -4,6 +4,7 @@ import { headline } from '../../core/present/values';
 import type { Feature } from '../context';
 import { spanToRange } from '../findings';
 import { cancelled } from '../requests';
+import { corePathOf } from '../files';
 import { showWaveformCommand } from '../protocol';
 
 export const lens: Feature = {
@@ -12,7 +13,7 @@ export const lens: Feature = {
   register(ctx) {
     ctx.connection.onCodeLens((params, token) => {
       if (token.isCancellationRequested) return cancelled();
-      if (!ctx.settings().lensEnabled) return [];
+      if (!ctx.settings(corePathOf(params.textDocument.uri)).lensEnabled) return [];
       const entry = ctx.store.current(params.textDocument.uri);
       if (!entry) return [];
       return entry.analysis.blocks.map((block) => {
