@@ -1,18 +1,11 @@
 -- Drives `tickmark lsp --stdio` from Neovim's built-in LSP client (Neovim 0.7), headless. Every step writes
 -- what Neovim saw to OUT as JSON; test/lsp/neovim.test.ts judges it. Run by that test with ROOT (the repo),
 -- WS (a temporary copy of the fixture workspace) and OUT in the environment.
-local ROOT = os.getenv('ROOT')
-local WS = os.getenv('WS')
-local OUT = os.getenv('OUT')
-local TIMEOUT = 20000
+local common = dofile(os.getenv('ROOT') .. '/test/lsp/neovim/common.lua')
+local ROOT, WS, TIMEOUT = common.ROOT, common.WS, common.TIMEOUT
 
 local seen = { steps = {}, publishes = {}, errors = {} }
-
-local function save()
-  local file = assert(io.open(OUT, 'w'))
-  file:write(vim.fn.json_encode(seen))
-  file:close()
-end
+local save = common.saver(seen)
 
 local function step(name, value)
   seen.steps[name] = value

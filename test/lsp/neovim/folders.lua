@@ -1,17 +1,11 @@
 -- Drives `tickmark lsp --stdio` from Neovim 0.7 with two workspace folders whose `tickmark` settings differ, as a
 -- multi-root editor answers workspace/configuration per folder (scopeUri). Writes what it saw to OUT as JSON;
 -- test/lsp/neovim-folders.test.ts judges it. ROOT (the repo), WS (a temporary folder holding `a` and `b`), OUT.
-local ROOT = os.getenv('ROOT')
-local WS = os.getenv('WS')
-local OUT = os.getenv('OUT')
-local TIMEOUT = 20000
+local common = dofile(os.getenv('ROOT') .. '/test/lsp/neovim/common.lua')
+local ROOT, WS, TIMEOUT = common.ROOT, common.WS, common.TIMEOUT
 
 local seen = { steps = {}, errors = {}, asked = {} }
-local function save()
-  local file = assert(io.open(OUT, 'w'))
-  file:write(vim.fn.json_encode(seen))
-  file:close()
-end
+local save = common.saver(seen)
 
 -- Each folder's `tickmark` section: the clock the firmware's build would define.
 local per_folder = {
