@@ -84,8 +84,9 @@ export function startServer(connection: Connection = createConnection(ProposedFe
     connection.workspace.onDidChangeWorkspaceFolders((e) => {
       const removed = new Set(e.removed.map(folderPath));
       folders = [...folders.filter((f) => !removed.has(f)), ...e.added.map(folderPath)];
-      if (canPullConfiguration) void pullSettings().then(() => store.invalidate());
-      else store.invalidate();
+      store.invalidate();
+      // A new folder's settings: the pull re-analyses again only if they differ.
+      if (canPullConfiguration) void pullSettings();
     });
   });
 
@@ -93,14 +94,19 @@ export function startServer(connection: Connection = createConnection(ProposedFe
    * workspace/configuration for `tickmark`, once per workspace folder (each over the initializationOptions); documents
    * re-analysed when anything differs. The first folder's settings also serve files outside every folder.
    */
+  let pulls = 0;
   const pullSettings = async (): Promise<void> => {
     const before = JSON.stringify([settings, [...folderSettings]]);
+    const pull = ++pulls;
     try {
-      const asked = folders.length ? folders : [undefined];
+      const asked = folders.length ? [...folders] : [undefined];
       const sections = await connection.workspace.getConfiguration(asked.map((folder) => ({ section: 'tickmark', scopeUri: folder === undefined ? undefined : reader.uriOf(folder) })));
+      // A later pull (the settings or the folders changed meanwhile) has the newer answer.
+      if (pull !== pulls) return;
       const parsed = asked.map((_, i) => parseSettings(sections[i], initialSettings));
       settings = parsed[0];
-      folderSettings = new Map(folders.map((folder, i) => [folder, parsed[i]]));
+      folderSettings = new Map();
+      asked.forEach((folder, i) => { if (folder !== undefined) folderSettings.set(folder, parsed[i]); });
     } catch (cause) {
       log(`reading the tickmark settings failed: ${String(cause)}`);
     }

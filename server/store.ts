@@ -197,10 +197,10 @@ export class AnalysisStore {
       seen.add(file);
       this.workspace.set({ uri: file, text: open.getText(), languageId: open.languageId });
     }
-    const maxBytes = this.host.settings().maxSizeKB * 1024;
     for (const file of this.workspaceFiles()) {
       if (seen.has(file)) continue;
-      const text = this.host.reader.read(file, maxBytes);
+      // Read under the file's own folder's size limit, as its analysis will be (optionsFor).
+      const text = this.host.reader.read(file, this.host.settings(file).maxSizeKB * 1024);
       // Files without a timing block cannot be referenced: they stay out of the pass.
       if (text === undefined || !text.includes('timing')) {
         this.workspace.delete(file);

@@ -294,7 +294,7 @@ export function buildConstantTable(entryUri: string, text: string, options: Cons
    * read thousands of macros once each, and a kept answer outlives the analysis step that asked (copied through V8's
    * young generation on a cold start). There a value read straight from a literal body is never kept (reading it
    * again costs no more), a computed one from its second reading on (a clock every timer reads). Declarations are
-   * always kept: an enum's implicit values count on it.
+   * always kept: warmEnumChain keeps a long enum's recursion one member deep by finding the earlier members kept.
    */
   const kept = (name: string, mb: Binding<MacroDef> | undefined, r: Resolved): boolean => {
     if (options.reused || mb?.kind !== 'def') return true;

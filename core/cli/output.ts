@@ -35,7 +35,7 @@ export class ProcessOutput {
   /** Asked of the descriptor once, not at every write. */
   readonly terminal: boolean;
 
-  constructor(private readonly fd: number) {
+  constructor(private readonly fd: 1 | 2) {
     this.terminal = isTerminal(fd);
   }
 

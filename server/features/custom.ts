@@ -97,13 +97,14 @@ async function filesExclude(ctx: ServerContext): Promise<Array<{ folder: string;
 function checkWorkspace(ctx: ServerContext, fromDisk: Set<string>, stop: () => boolean, excludeIn: Array<{ folder: string; globs: string[] }> = []): WorkspaceSummary {
   const summary: WorkspaceSummary = { files: 0, blocks: 0, errors: 0, warnings: 0, skipped: [] };
   const roots = ctx.roots();
-  const limit = ctx.settings().maxSizeKB * 1024;
   const relative = (file: string) => path.relative(folderOf(file, roots) ?? '', file).split(path.sep).join('/');
   // The same files a `tickmark check` of the folders reads (types, .gitignore), less the editor's files.exclude.
   for (const file of collectFiles(roots, roots[0] ?? process.cwd(), { excludeIn }).files) {
     if (stop()) break;
     const uri = ctx.reader.uriOf(file);
     const open = ctx.documents.get(uri);
+    // Each file under its own folder's size limit (a multi-root workspace may set it per folder).
+    const limit = ctx.settings(file).maxSizeKB * 1024;
     let found: { blocks: number; placed: PlacedFinding[] };
     if (open && ctx.store.openUris().includes(uri)) {
       // An open editor shows its live analysis, and its one file-too-large notice.

@@ -8,7 +8,6 @@ import Ajv from 'ajv';
 import addFormats from 'ajv-formats';
 import { spawnSync } from 'node:child_process';
 import { main } from '../../core/cli/main';
-import { ProcessOutput } from '../../core/cli/output';
 import { wantsColor } from '../../core/cli/color';
 import { codeTable } from '../../core/codes';
 import { runCli, tempWorkspace } from '../helpers/cli';
@@ -234,14 +233,18 @@ describe('tickmark colour', () => {
   });
 
   it('writes a long one-line report in pieces that make exactly the JSON of the whole', () => {
-    // ECMA-262 JSON.stringify of the parsed report is the reference: the pieces joined are that text, byte for byte.
+    // ECMA-262 JSON.stringify of the whole report (the terminal's, parsed) is the reference: the pieces joined are
+    // that text, byte for byte.
     const blocks = Array.from({ length: 400 }, (_, i) => staleNote.replace('timing tick', `timing tick-${i}`)).join('\n');
     const dir = workspace({ 'stale.md': blocks });
     const pieces: string[] = [];
     main(['check', '--json', 'stale.md'], { out: (t) => pieces.push(t), err: () => undefined, cwd: dir, color: false, terminal: false });
+    // The whole report, made at once as a terminal gets it (indented by JSON.stringify of the one object).
+    let whole = '';
+    main(['check', '--json', 'stale.md'], { out: (t) => (whole += t), err: () => undefined, cwd: dir, color: false, terminal: true });
     const text = pieces.join('');
     assert.ok(pieces.length > 1, 'more than one piece');
-    assert.equal(text, JSON.stringify(JSON.parse(text)) + '\n');
+    assert.equal(text, JSON.stringify(JSON.parse(whole)) + '\n');
     assert.equal(JSON.parse(text).files[0].blocks.length, 400);
   });
 
@@ -262,17 +265,17 @@ describe('tickmark colour', () => {
 describe('command output to a file or pipe', () => {
   it('writes a long report piece by piece with every character whole', () => {
     // RFC 3629: a character beyond U+FFFF is one four-byte sequence (never two three-byte halves); Node's
-    // Buffer.from is the reference encoding. The pair straddles the first piece boundary, others follow it.
+    // Buffer.from is the reference encoding. The pair straddles the first piece boundary, others follow it. A child
+    // process writes through its standard output, which is the file.
     const text = 'a'.repeat(16383) + '\u{1F552}' + '±'.repeat(20000) + '\u{10FFFF}x\n';
     const dir = workspace({});
     const file = path.join(dir, 'out.txt');
     const fd = fs.openSync(file, 'w');
+    const script = `require('tsx/cjs'); const { ProcessOutput } = require(${JSON.stringify(path.resolve(__dirname, '../../core/cli/output.ts'))});
+      const out = new ProcessOutput(1); out.write(process.argv[1]); out.write(''); out.write('end\\n'); if (!out.flushed) process.exit(3);`;
     try {
-      const output = new ProcessOutput(fd);
-      output.write(text);
-      output.write('');
-      output.write('end\n');
-      assert.ok(output.flushed);
+      const run = spawnSync(process.execPath, ['-e', script, text], { stdio: ['ignore', fd, 'pipe'], encoding: 'utf8' });
+      assert.equal(run.status, 0, run.stderr);
     } finally {
       fs.closeSync(fd);
     }

@@ -64,3 +64,23 @@ describe('constant tables kept across edits', () => {
     assert.deepEqual(cache.counts, { built: 2, reused: 0 });
   });
 });
+
+describe('answers kept or read again', () => {
+  it('answers alike at every lookup, whether a table keeps every answer or only what is read twice', () => {
+    // C11 6.5.5 (integer division truncates) and 6.7.2.2 (enum constants count from 0): TOP = 249, SLOT_COUNT = 2,
+    // DIV = 64, as gcc 12 prints them for the same definitions (checked by hand; the gcc suites check these rules).
+    const files = { '/fw/board.h': header };
+    const build = (reused: boolean) => buildConstantTable('/fw/tick.c', source('1 kHz'), { dataModel: 'ilp32', includeDirs: [], workspaceRoots: ['/fw'], read: (f) => files[f as keyof typeof files], reused });
+    const once = build(false);
+    const kept = build(true);
+    const first = answers(once);
+    for (let i = 0; i < 3; i++) {
+      assert.deepEqual(answers(once), first, `one-pass table, lookup ${i + 2}`);
+      assert.deepEqual(answers(kept), first, `kept table, lookup ${i + 1}`);
+    }
+    const value = (name: string) => { const r = once.lookup(name); return r.ok ? r.value.value : r.message; };
+    assert.equal(value('TOP'), 249n);
+    assert.equal(value('SLOT_COUNT'), 2n);
+    assert.equal(value('DIV'), 64n);
+  });
+});
