@@ -132,7 +132,7 @@ class Resolved {
   declare readonly ok: true;
   declare readonly val: Val;
   declare readonly definition: ConstantDefinition;
-  /** Read from a body that is one number or character constant: as quick to read again as to keep (see lookup). */
+  /** Read from a body that is one number or character constant: as quick to read again as to keep (see kept). */
   declare readonly literal: boolean;
 
   constructor(val: Val, definition: ConstantDefinition, literal: boolean) {

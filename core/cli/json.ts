@@ -102,7 +102,7 @@ export function writeJsonReport(checked: CheckedFile[], cwd: string, out: (text:
         text = '';
       }
     }
-    text += `],"diagnostics":${JSON.stringify(file.analysis.findings.map((d) => diagnostic(d, file, shownPath)))}}`;
+    text += `],"diagnostics":${JSON.stringify(diagnosticsOf(file.analysis.findings, file, shownPath))}}`;
   }
   out(text + ']}\n');
 }
@@ -113,7 +113,7 @@ export function jsonReport(checked: CheckedFile[], cwd: string, indent?: number)
   const files = checked.map((file) => ({
     path: file.display,
     blocks: file.analysis.blocks.map((b) => block(b, file, shownPath)),
-    diagnostics: file.analysis.findings.map((f) => diagnostic(f, file, shownPath)),
+    diagnostics: diagnosticsOf(file.analysis.findings, file, shownPath),
   }));
   // `version` is the shape's version: it changes only when a field changes meaning or goes away.
   return JSON.stringify({ version: 1, files }, null, indent) + '\n';
